@@ -1,0 +1,34 @@
+import Papa from 'papaparse';
+import type { Request, Response } from 'express';
+
+/**
+ * A spreadsheet runs a cell starting with = + - @ (or a tab or carriage return) as a formula.
+ * Such text cells get a leading apostrophe; real numbers stay numbers. [practice: OWASP
+ * "CSV injection" guidance]
+ */
+export function neutraliseCell(value: unknown): string | number | boolean | null {
+  if (value === null || value === undefined) return null;
+  if (typeof value === 'number') return Number.isFinite(value) ? value : null;
+  if (typeof value === 'boolean') return value;
+  const text = Array.isArray(value) ? value.join(' | ') : typeof value === 'object' ? JSON.stringify(value) : String(value);
+  return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
+}
+
+export function toCsv(rows: readonly Record<string, unknown>[], columns?: readonly string[]): string {
+  const cols = columns ?? (rows[0] ? Object.keys(rows[0]) : []);
+  const data = rows.map((r) => cols.map((c) => neutraliseCell(r[c])));
+  return Papa.unparse({ fields: [...cols], data }, { newline: '\r\n' });
+}
+
+export const wantsCsv = (req: Request) => req.query.format === 'csv';
+
+/** Answers a list as `{ items, total }`, or as CSV when `?format=csv`. */
+export function sendList<T extends object>(req: Request, res: Response, items: readonly T[], opts: { total?: number; filename?: string; columns?: readonly string[]; extra?: Record<string, unknown> } = {}) {
+  if (wantsCsv(req)) {
+    res.type('text/csv; charset=utf-8');
+    res.setHeader('Content-Disposition', `attachment; filename="${(opts.filename ?? 'export').replace(/[^A-Za-z0-9_.-]/g, '_')}.csv"`);
+    res.send('\uFEFF' + toCsv(items as readonly Record<string, unknown>[], opts.columns));
+    return;
+  }
+  res.json({ items, total: opts.total ?? items.length, ...opts.extra });
+}

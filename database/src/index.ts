@@ -1,0 +1,1 @@
+export { createMigrator, type Migration, type MigrationContext } from './migrator';
