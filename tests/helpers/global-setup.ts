@@ -12,7 +12,7 @@ export default async function setup() {
   try {
     await s.authenticate();
   } catch (err) {
-    throw new Error(`MariaDB is not reachable on ${config.DB_HOST}:${config.DB_PORT}; run the tests with "npm test" (which starts it). ${String(err)}`);
+    throw new Error(`MariaDB is not reachable on ${config.DB_HOST}:${config.DB_PORT}; run the tests with "npm test" (which starts it).`, { cause: err });
   } finally {
     await s.close();
   }
