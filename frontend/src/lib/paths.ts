@@ -1,0 +1,69 @@
+/**
+ * Every route of the app in one typed map: `path` is the router pattern, `href(...)` builds a link.
+ */
+function encode(segment: string | number): string {
+  return encodeURIComponent(String(segment));
+}
+
+function withQuery(base: string, query: Record<string, string | undefined>): string {
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(query)) if (value !== undefined && value !== '') params.set(key, value);
+  const text = params.toString();
+  return text ? `${base}?${text}` : base;
+}
+
+export const paths = {
+  home: { path: '/', href: () => '/' },
+
+  signIn: {
+    path: '/sign-in',
+    /** `next` is where to go after signing in; `notice` shows a short message (see SIGN_IN_NOTICES). */
+    href: (options: { next?: string; notice?: SignInNotice } = {}) =>
+      withQuery('/sign-in', { next: options.next, notice: options.notice }),
+  },
+  resetPasswordRequest: { path: '/reset-password', href: () => '/reset-password' },
+  resetPasswordConfirm: {
+    path: '/reset-password/:token',
+    href: (token: string) => `/reset-password/${encode(token)}`,
+  },
+  invitation: { path: '/invite/:token', href: (token: string) => `/invite/${encode(token)}` },
+
+  elections: { path: '/elections', href: () => '/elections' },
+  pollsters: { path: '/pollsters', href: () => '/pollsters' },
+  audits: { path: '/audits', href: () => '/audits' },
+  sharedError: { path: '/shared-error', href: () => '/shared-error' },
+  imports: { path: '/imports', href: () => '/imports' },
+  notes: { path: '/notes', href: () => '/notes' },
+  dataQuality: { path: '/data-quality', href: () => '/data-quality' },
+
+  apiTokens: { path: '/settings/api-tokens', href: () => '/settings/api-tokens' },
+
+  adminUsers: { path: '/admin/users', href: () => '/admin/users' },
+  adminMailbox: { path: '/admin/mailbox', href: () => '/admin/mailbox' },
+  adminMailMessage: {
+    path: '/admin/mailbox/:messageId',
+    href: (messageId: number | string) => `/admin/mailbox/${encode(messageId)}`,
+  },
+} as const;
+
+export const SIGN_IN_NOTICES = {
+  'signed-out': 'You have signed out.',
+  'password-reset': 'Your password has been changed. Sign in with the new one.',
+  'account-ready': 'Your account is ready. Sign in with the e-mail address and password you chose.',
+  'session-expired': 'Your session has ended. Sign in again to continue.',
+} as const;
+export type SignInNotice = keyof typeof SIGN_IN_NOTICES;
+
+export function isSignInNotice(value: string | null): value is SignInNotice {
+  return value !== null && Object.hasOwn(SIGN_IN_NOTICES, value);
+}
+
+/**
+ * Accepts a post-sign-in destination only when it is a path inside this app, so a crafted
+ * `?next=https://elsewhere` link cannot send a user off-site.
+ */
+export function safeNextPath(next: string | null | undefined, fallback: string = paths.home.href()): string {
+  if (!next || !next.startsWith('/') || next.startsWith('//') || next.startsWith('/\\')) return fallback;
+  if (next === paths.signIn.path || next.startsWith(`${paths.signIn.path}?`)) return fallback;
+  return next;
+}
