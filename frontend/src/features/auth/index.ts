@@ -1,0 +1,11 @@
+export { authKeys } from './api/keys';
+export { getMe, meQueryOptions, useCurrentUser } from './api/get-me';
+export { login, loginInputSchema, useLogin, type LoginInput } from './api/login';
+export { logout, useLogout } from './api/logout';
+export { requestPasswordReset, useRequestPasswordReset } from './api/request-password-reset';
+export { confirmPasswordReset, useConfirmPasswordReset } from './api/confirm-password-reset';
+export { SignInForm } from './components/SignInForm';
+export { PasswordResetRequestForm } from './components/PasswordResetRequestForm';
+export { PasswordResetConfirmForm } from './components/PasswordResetConfirmForm';
+export { RequireRole, type RequireRoleProps } from './components/RequireRole';
+export { SignOutButton } from './components/SignOutButton';

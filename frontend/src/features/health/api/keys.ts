@@ -1,0 +1,4 @@
+export const healthKeys = {
+  all: ['health'] as const,
+  detail: () => [...healthKeys.all, 'detail'] as const,
+};
