@@ -1,0 +1,102 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { createBrowserRouter, type RouteObject } from 'react-router-dom';
+import { apiTokensQueryOptions } from '../features/api-tokens';
+import { RequireRole } from '../features/auth';
+import { invitationsQueryOptions } from '../features/invitations';
+import { mailMessageIdSchema, mailMessageQueryOptions, mailMessagesQueryOptions } from '../features/mailbox';
+import { usersQueryOptions } from '../features/users';
+import { paths } from '../lib/paths';
+import { AppShell } from './layout/AppShell';
+import { PublicLayout } from './layout/PublicLayout';
+import { RootLayout } from './layout/RootLayout';
+import { prefetchLoader, requireUserLoader, signInLoader } from './loaders';
+import { AdminMailboxRoute, AdminMailMessageRoute } from './routes/admin-mailbox';
+import { AdminUsersRoute } from './routes/admin-users';
+import { ApiTokensRoute } from './routes/api-tokens';
+import { UNBUILT_AREAS, UnbuiltAreaRoute } from './routes/areas';
+import { HomeRoute, homeLoader } from './routes/home';
+import { InvitationRoute, invitationLoader } from './routes/invitation';
+import { NotFoundRoute } from './routes/not-found';
+import { ResetPasswordConfirmRoute, ResetPasswordRequestRoute } from './routes/reset-password';
+import { RouteErrorBoundary } from './routes/route-error';
+import { SignInRoute } from './routes/sign-in';
+
+/** Areas that need more than the viewer role (SPEC §2). */
+const AREA_MINIMUM_ROLE: Partial<Record<string, 'analyst'>> = { [paths.imports.path]: 'analyst' };
+
+export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
+  return [
+    {
+      id: 'root',
+      element: <RootLayout />,
+      errorElement: <RouteErrorBoundary fullPage />,
+      children: [
+        {
+          element: <PublicLayout />,
+          children: [
+            { path: paths.signIn.path, loader: signInLoader(queryClient), element: <SignInRoute /> },
+            { path: paths.resetPasswordRequest.path, element: <ResetPasswordRequestRoute /> },
+            { path: paths.resetPasswordConfirm.path, element: <ResetPasswordConfirmRoute /> },
+            { path: paths.invitation.path, loader: invitationLoader(queryClient), element: <InvitationRoute /> },
+          ],
+        },
+        {
+          id: 'shell',
+          loader: requireUserLoader(queryClient),
+          element: <AppShell />,
+          children: [
+            {
+              errorElement: <RouteErrorBoundary />,
+              children: [
+                { index: true, loader: homeLoader(queryClient), element: <HomeRoute /> },
+                ...UNBUILT_AREAS.map((area): RouteObject => {
+                  const minimum = AREA_MINIMUM_ROLE[area.path];
+                  const screen = <UnbuiltAreaRoute title={area.title} purpose={area.purpose} />;
+                  return {
+                    path: area.path,
+                    element: minimum ? <RequireRole minimum={minimum}>{screen}</RequireRole> : screen,
+                  };
+                }),
+                {
+                  path: paths.apiTokens.path,
+                  loader: prefetchLoader(queryClient, 'viewer', () => [apiTokensQueryOptions()]),
+                  element: <ApiTokensRoute />,
+                },
+                {
+                  element: <RequireRole minimum="admin" />,
+                  children: [
+                    {
+                      path: paths.adminUsers.path,
+                      loader: prefetchLoader(queryClient, 'admin', () => [usersQueryOptions(), invitationsQueryOptions()]),
+                      element: <AdminUsersRoute />,
+                    },
+                    {
+                      path: paths.adminMailbox.path,
+                      loader: prefetchLoader(queryClient, 'admin', () => [mailMessagesQueryOptions()]),
+                      element: <AdminMailboxRoute />,
+                    },
+                    {
+                      path: paths.adminMailMessage.path,
+                      loader: (args) => {
+                        const id = mailMessageIdSchema.safeParse(args.params.messageId);
+                        return prefetchLoader(queryClient, 'admin', () =>
+                          id.success ? [mailMessageQueryOptions(id.data)] : [],
+                        )();
+                      },
+                      element: <AdminMailMessageRoute />,
+                    },
+                  ],
+                },
+                { path: '*', element: <NotFoundRoute /> },
+              ],
+            },
+          ],
+        },
+      ],
+    },
+  ];
+}
+
+export function createAppRouter(queryClient: QueryClient) {
+  return createBrowserRouter(createAppRoutes(queryClient));
+}
