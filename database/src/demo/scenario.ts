@@ -131,8 +131,8 @@ export const DEMO_ELECTIONS: readonly DemoElectionSpec[] = [
   {
     kind: 'general', year: 2014, date: '2014-05-18', name: 'Almerand general election 2014',
     nationalList: { oak: 38.5, lantern: 36, tidewater: 12, verdant: 7.5, farmers: 6 },
-    turnout: 0.71, sharedBias: { OAK: 0.5, LAN: -0.5 }, provinceBiasSd: 1.2,
-    movement: { OAK: 1, LAN: -1 }, polls: 160,
+    turnout: 0.71, sharedBias: { OAK: 0.25, LAN: -0.25 }, provinceBiasSd: 1.2,
+    movement: { OAK: 0.75, LAN: -0.75 }, polls: 160,
   },
   {
     kind: 'general', year: 2018, date: '2018-05-13', name: 'Almerand general election 2018',
@@ -147,7 +147,7 @@ export const DEMO_ELECTIONS: readonly DemoElectionSpec[] = [
     referendum: {
       slug: 'water-authority',
       question: 'Should a national water authority replace the provincial water boards?',
-      yesShare: 47.5, turnout: 0.52, sharedBiasYes: 1, movementYes: 4,
+      yesShare: 47.5, turnout: 0.52, sharedBiasYes: -0.75, movementYes: 1,
     },
   },
   {
@@ -162,7 +162,7 @@ export const DEMO_ELECTIONS: readonly DemoElectionSpec[] = [
   {
     kind: 'general', year: 2026, date: '2026-10-18', name: 'Almerand general election 2026',
     nationalList: { oak: 31, lantern: 33, forward: 17, verdant: 8.5, tidewater: 6.5, farmers: 4 },
-    turnout: 0.69, sharedBias: { OAK: 0.4, LAN: -0.4 }, provinceBiasSd: 1.2,
+    turnout: 0.69, sharedBias: { OAK: -0.25, LAN: 0.25 }, provinceBiasSd: 1.2,
     movement: { LAN: -1.5, VRD: 1, FWD: 0.5 }, polls: 280,
     provisionalProvinces: ['sunhollow', 'vennick-isles'],
     referendum: {
@@ -235,7 +235,7 @@ const NONE: DemoSponsor = { name: '', type: '', weight: 1 };
 export const DEMO_POLLSTERS: readonly DemoPollster[] = [
   {
     name: 'Corrowick Research', slug: 'corrowick-research', aliases: [], mode: 'phone', population: 'lv',
-    lean: { bloc: 'LAN', points: 0.5 }, leanYes: 0.5, susceptibility: 1,
+    lean: { bloc: 'LAN', points: 0.5 }, leanYes: 0, susceptibility: 1,
     sampleSize: { mean: 1000, sd: 120, roundTo: 1 }, designEffect: 1.3, moe: 'srs',
     timing: { earliest: 42, latest: 2, shape: 1.4 }, undecided: 9, decimals: 0, forceHundred: true,
     lumpBelow: 0, active: { from: 2014, to: 2026 }, weights: { national: 1.2, province: 0.8, referendum: 1 },
@@ -244,7 +244,7 @@ export const DEMO_POLLSTERS: readonly DemoPollster[] = [
   {
     name: 'Brightfen Polling Ltd', slug: 'brightfen-polling', aliases: ['Brightfen Polling', 'BRIGHTFEN POLLING LTD'],
     mode: 'online', population: 'rv', lvWithinDays: 21,
-    lean: { bloc: 'OAK', points: 1.5 }, leanYes: 1.5, susceptibility: 1,
+    lean: { bloc: 'OAK', points: 1.5 }, leanYes: 1, susceptibility: 1,
     sampleSize: { mean: 2000, sd: 250, roundTo: 100 }, designEffect: 1.8, moe: 'deff',
     timing: { earliest: 45, latest: 2, shape: 1.2 }, undecided: 11, decimals: 1, forceHundred: true,
     lumpBelow: 0, active: { from: 2014, to: 2026 }, weights: { national: 1.6, province: 0.5, referendum: 1.2 },
@@ -282,7 +282,7 @@ export const DEMO_POLLSTERS: readonly DemoPollster[] = [
   {
     name: 'Halloway & Finch', slug: 'halloway-finch', aliases: ['Halloway and Finch', 'Halloway & Finch Ltd'],
     mode: 'phone', population: 'lv',
-    lean: { bloc: 'LAN', points: 2.5 }, leanYes: 1, susceptibility: 1,
+    lean: { bloc: 'LAN', points: 2.5 }, leanYes: 0.5, susceptibility: 1,
     sampleSize: { mean: 800, sd: 100, roundTo: 1 }, designEffect: 1.3, moe: 'srs',
     timing: { earliest: 42, latest: 4, shape: 1.5 }, undecided: 7, decimals: 0, forceHundred: false,
     lumpBelow: 0, active: { from: 2014, to: 2026 }, weights: { national: 0.9, province: 0.6, referendum: 0.6 },
@@ -294,7 +294,7 @@ export const DEMO_POLLSTERS: readonly DemoPollster[] = [
   },
   {
     name: 'Pulsewick Text Surveys', slug: 'pulsewick-text-surveys', aliases: [], mode: 'text', population: 'rv',
-    lean: { bloc: 'FWD', points: 2 }, leanYes: 1, susceptibility: 1,
+    lean: { bloc: 'FWD', points: 2 }, leanYes: 0.5, susceptibility: 1,
     sampleSize: { mean: 900, sd: 150, roundTo: 1 }, designEffect: 1.6, moe: 'none',
     timing: { earliest: 21, latest: 2, shape: 1 }, undecided: 10, decimals: 0, forceHundred: false,
     lumpBelow: 4, active: { from: 2018, to: 2026 }, weights: { national: 0.7, province: 0.3, referendum: 0.8 },
@@ -302,7 +302,7 @@ export const DEMO_POLLSTERS: readonly DemoPollster[] = [
   },
   {
     name: 'Torvane Opinion', slug: 'torvane-opinion', aliases: [], mode: 'online', population: 'a',
-    lean: { bloc: 'LAN', points: 1 }, leanYes: 1.5, susceptibility: 1,
+    lean: { bloc: 'LAN', points: 1 }, leanYes: 0.5, susceptibility: 1,
     sampleSize: { mean: 2500, sd: 400, roundTo: 50 }, designEffect: 1.9, moe: 'none',
     timing: { earliest: 49, latest: 3, shape: 1.3 }, undecided: 12, decimals: 0, forceHundred: true,
     lumpBelow: 0, active: { from: 2014, to: 2022 }, weights: { national: 1.1, province: 0, referendum: 1 },
