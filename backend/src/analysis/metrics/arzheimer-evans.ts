@@ -136,7 +136,8 @@ export interface MergedCategories {
  *   `poll.undecided` when present.
  * @returns new records and the list of merges; inputs are never mutated.
  * @example mergeEmptyCategories({ A: 50, B: 50, C: 0, D: 0 }, { A: 48, B: 50, C: 1, D: 1 })
- * // => { poll: { A: 50, B: 50 }, result: { A: 48, B: 50 }, merges: ['C+D into A+C+D'] } (pool empty in the poll, folded into A)
+ * // => { poll: { 'A+C+D': 50, B: 50 }, result: { 'A+C+D': 50, B: 50 }, merges: ['C+D into A+C+D'] }
+ * // (the pool C+D is empty in the poll, so it joins A, the smallest certified share)
  */
 export function mergeEmptyCategories(poll: Shares, result: Shares): MergedCategories {
   requireNonNegativeShares('poll', poll);

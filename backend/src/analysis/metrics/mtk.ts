@@ -109,8 +109,10 @@ export function mtkMean(values: readonly number[]): MtkMean {
   requireSample('values', values, 2);
   const k = values.length;
   const m = mean(values);
+  // Test equality on the values: the mean of equal floats can carry rounding
+  // (3 × 0.1 / 3 ≠ 0.1), which would leave a spurious sd of order 1e-17.
   const sd = sampleStandardDeviation(values);
-  if (!(sd > 0)) {
+  if (values.every((v) => v === values[0]) || !(sd > 0)) {
     throw new MetricInputError('values', 'must not all be equal (a standard deviation of 0 leaves t undefined)');
   }
   const se = sd / Math.sqrt(k);

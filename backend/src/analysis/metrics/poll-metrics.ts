@@ -22,12 +22,19 @@ import { MetricInputError, requirePositive } from '../errors';
 import { aeAccuracy, mergeEmptyCategories } from './arzheimer-evans';
 import { marginCovered as marginCoverage, shareCovered as shareCoverage } from './coverage';
 import { daysOut as computeDaysOut } from './days-out';
-import { lean as leanOf, shareErrors as computeShareErrors, signedMarginError, twoPartyShareError as tpse, winnerCalled as called, type Lean } from './margin';
+import {
+  lean as leanOf,
+  shareErrors as computeShareErrors,
+  signedMarginError,
+  twoPartyShareError as tpse,
+  winnerCalled as called,
+  type Lean,
+} from './margin';
 import { mosteller3 as computeMosteller3, mosteller5 as computeMosteller5 } from './mosteller';
 import { mtkAccuracy } from './mtk';
 import { certifiedShares, referencePair, type ContestInput, type ReferenceBasis } from './reference-pair';
 import { nEffFromStatedMoe } from './sampling';
-import { OTHER, UNDECIDED, hasShare, requireShare, requireShares, type Shares } from './shares';
+import { OTHER, TIE_TOLERANCE_PTS, UNDECIDED, hasShare, requireShare, requireShares, type Shares } from './shares';
 import { applyUndecided, requireTreatment, type UndecidedTreatment } from './undecided';
 
 /** One published poll of the contest. */
@@ -176,9 +183,9 @@ export function computePollMetrics(
 ): PollMetrics {
   const pair = referencePair(contest);
   const certified = certifiedShares(contest.options);
-  const days = computeDaysOut(contest.electionDate, poll?.fieldworkStart, poll?.fieldworkEnd);
-  requireSettings(settings);
   requirePoll(poll);
+  requireSettings(settings);
+  const days = computeDaysOut(contest.electionDate, poll.fieldworkStart, poll.fieldworkEnd);
   const { refA, refB, winner, runnerUp } = pair;
   const raw = poll.shares;
   const rawA = requireShare('shares', raw, refA);
@@ -205,9 +212,11 @@ export function computePollMetrics(
   const marginError = signedMarginError(pollA, pollB, resultA, resultB);
   const m3 = computeMosteller3(treatedPoll, treatedResult);
 
+  const resA = certified[refA] ?? 0;
+  const resB = certified[refB] ?? 0;
   let twoPartyShareError: number | null = null;
-  if (rawA + rawB > 0) twoPartyShareError = tpse(rawA, rawB, certified[refA] ?? 0, certified[refB] ?? 0);
-  else notes.push('The poll gives A and B 0 both: the two-party share error is undefined.');
+  if (rawA + rawB > 0 && resA + resB > 0) twoPartyShareError = tpse(rawA, rawB, resA, resB);
+  else notes.push('The poll or the result gives A and B 0 both: the two-party share error is undefined.');
 
   let mosteller5: number | null = null;
   if (hasShare(treatedPoll, winner) && hasShare(treatedPoll, runnerUp)) {
@@ -227,13 +236,12 @@ export function computePollMetrics(
 
   let winnerCalled: boolean | null = null;
   if (hasShare(raw, winner) && hasShare(raw, runnerUp)) {
-    const pollLead = (raw[winner] ?? 0) - (raw[runnerUp] ?? 0);
     winnerCalled = called(raw[winner] ?? 0, raw[runnerUp] ?? 0, certified[winner] ?? 0, certified[runnerUp] ?? 0);
     if (winnerCalled === null) {
       notes.push(
-        Math.abs((certified[winner] ?? 0) - (certified[runnerUp] ?? 0)) < 1e-9
-          ? 'The certified top two are tied: no call.'
-          : `The poll has the certified top two tied (lead ${pollLead.toFixed(1)}): no call, left out of call rates.`,
+        Math.abs((certified[winner] ?? 0) - (certified[runnerUp] ?? 0)) < TIE_TOLERANCE_PTS
+          ? 'The certified top two are tied: no call, left out of call rates.'
+          : 'The poll has the certified top two tied: no call, left out of call rates.',
       );
     }
   } else {
@@ -245,8 +253,6 @@ export function computePollMetrics(
   const nEff = poll.moe !== null ? nEffFromStatedMoe(poll.moe) : nDesign;
 
   let mtk: ReturnType<typeof mtkAccuracy> | null = null;
-  const resA = certified[refA] ?? 0;
-  const resB = certified[refB] ?? 0;
   if (rawA > 0 && rawB > 0 && resA > 0 && resB > 0) {
     mtk = mtkAccuracy({ pollA: rawA, pollB: rawB, resultA: resA, resultB: resB, n: nDesign });
   } else {

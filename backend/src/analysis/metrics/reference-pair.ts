@@ -48,7 +48,7 @@ function compareKeys(a: string, b: string): number {
  * always give the same pair. A real certified tie is settled by lot or recount,
  * which the results file does not record; the key order is only a convention.
  */
-export function byVotesThenKey(a: ContestOption, b: ContestOption): number {
+function byVotesThenKey(a: ContestOption, b: ContestOption): number {
   return b.votes - a.votes || compareKeys(a.key, b.key);
 }
 
@@ -104,7 +104,9 @@ export function certifiedShares(options: readonly ContestOption[]): Record<strin
  * bloc), A and B are those options; when several options share a bloc, the one
  * with the most certified votes represents it. Otherwise A and B are the
  * certified top two with A the winner. Ties in votes are broken by option key
- * (see {@link byVotesThenKey}). The certified top two (`winner`, `runnerUp`) are
+ * in ascending code-unit order (`'A' < 'B' < 'a'`): a convention that makes the
+ * same data always give the same pair, since the results file does not record
+ * how a real tie was settled. The certified top two (`winner`, `runnerUp`) are
  * returned in both cases, for winner-called and Mosteller's measure 5.
  *
  * @param contest - options (see {@link certifiedShares}) and the orientation

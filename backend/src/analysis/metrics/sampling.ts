@@ -107,7 +107,7 @@ export function kishDesignEffect(weights: readonly number[]): KishDesignEffect {
  * @param moePts - stated 95% margin of error in **points**, in (0, 100].
  * @throws {MetricInputError} `moePts`.
  * @returns n_eff > 0, not rounded.
- * @example nEffFromStatedMoe(3.1) // => 999.43…
+ * @example nEffFromStatedMoe(3.1) // => 999.338…
  */
 export function nEffFromStatedMoe(moePts: number): number {
   requirePositive('moePts', moePts);

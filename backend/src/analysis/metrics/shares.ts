@@ -23,9 +23,12 @@ export type Shares = Readonly<Record<string, number>>;
  */
 export const TIE_TOLERANCE_PTS = 1e-9;
 
-/** Own-property test that ignores keys inherited from `Object.prototype`. */
+/**
+ * Own-property test that ignores keys inherited from `Object.prototype`.
+ * Never throws: anything that is not an object has no shares.
+ */
 export function hasShare(shares: Shares, key: string): boolean {
-  return Object.hasOwn(shares, key);
+  return shares !== null && typeof shares === 'object' && Object.hasOwn(shares, key);
 }
 
 /**
