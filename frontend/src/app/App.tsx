@@ -7,10 +7,11 @@ import { createAppQueryClient } from './query-client';
 import { createAppRouter } from './router';
 
 function createApp() {
-  let router: ReturnType<typeof createAppRouter> | undefined;
+  const holder: { router?: ReturnType<typeof createAppRouter> } = {};
   const queryClient = createAppQueryClient({
     onUnauthorized: () => {
       queryClient.setQueryData(meQueryOptions().queryKey, null);
+      const router = holder.router;
       if (!router) return;
       const { pathname, search } = router.state.location;
       if (pathname === paths.signIn.path) return;
@@ -19,7 +20,8 @@ function createApp() {
       });
     },
   });
-  router = createAppRouter(queryClient);
+  const router = createAppRouter(queryClient);
+  holder.router = router;
   return { queryClient, router };
 }
 

@@ -1,5 +1,6 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
+import { LoadingState } from '../components/ui';
 import { apiTokensQueryOptions } from '../features/api-tokens';
 import { RequireRole } from '../features/auth';
 import { invitationsQueryOptions } from '../features/invitations';
@@ -30,6 +31,11 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
       id: 'root',
       element: <RootLayout />,
       errorElement: <RouteErrorBoundary fullPage />,
+      hydrateFallbackElement: (
+        <div className="flex min-h-screen items-center justify-center">
+          <LoadingState label="Loading Veracast…" />
+        </div>
+      ),
       children: [
         {
           element: <PublicLayout />,

@@ -93,6 +93,8 @@ export function DataTable<Row extends RowData>({
     data,
     getRowId: getRowId ? (row: Row) => getRowId(row) : undefined,
     globalFilterFn: 'includesString',
+    // The first click sorts ascending for every column, numbers included.
+    sortDescFirst: false,
     initialState: { sorting: initialSorting, pagination: { pageIndex: 0, pageSize }, globalFilter: '' },
   });
 
