@@ -16,6 +16,7 @@ import { usersRouter } from './routes/users/router';
 import { apiTokensRouter } from './routes/api-tokens/router';
 import { mailboxRouter } from './routes/mailbox/router';
 import { healthRouter } from './routes/health/router';
+import { importsRouter } from './routes/imports/router';
 import { openApiDocument } from './openapi';
 
 const defaultDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../frontend/dist');
@@ -57,6 +58,7 @@ export function createApp(ctx: AppContext): Express {
   api.use('/users', usersRouter(ctx));
   api.use('/api-tokens', apiTokensRouter());
   api.use('/admin/mailbox', mailboxRouter());
+  api.use('/imports', importsRouter(ctx));
   api.use((_req, _res, next) => next(notFound('API route')));
   app.use(API_PREFIX, api);
 

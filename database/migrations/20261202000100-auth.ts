@@ -1,7 +1,7 @@
-import { DataTypes } from 'sequelize';
+import { DataTypes, literal } from 'sequelize';
 import type { Migration } from '../src/migrator';
 
-const created = { type: DataTypes.DATE(3), allowNull: false, defaultValue: DataTypes.NOW };
+const created = { type: DataTypes.DATE(3), allowNull: false, defaultValue: literal('CURRENT_TIMESTAMP(3)') };
 
 export const up: Migration['up'] = async ({ context: q }) => {
   await q.createTable('users', {

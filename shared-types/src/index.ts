@@ -1,3 +1,4 @@
 export * from './roles';
 export * from './auth';
 export * from './api';
+export * from './data';

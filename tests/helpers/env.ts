@@ -15,7 +15,7 @@ export function testEnv(): NodeJS.ProcessEnv {
     NODE_ENV: 'test',
     DB_PASSWORD: process.env.DB_PASSWORD || fromFile('db-password'),
     JWT_SECRET: process.env.JWT_SECRET || fromFile('jwt-secret') || 'test-secret-test-secret-test-secret-0123',
-    LOG_LEVEL: 'silent',
+    LOG_LEVEL: process.env.TEST_LOG_LEVEL || 'silent',
     SMTP_URL: '',
     SMTP_FAKE_PORT: '0',
     PORT: '0',

@@ -4,8 +4,15 @@ import { InvitationModel } from './invitation';
 import { PasswordResetModel } from './password-reset';
 import { ApiTokenModel } from './api-token';
 import { MailMessageModel } from './mail-message';
+import { ElectionModel } from './election';
+import { ContestModel } from './contest';
+import { OptionModel } from './option';
+import { PollsterModel, PollsterAliasModel, SponsorModel } from './pollster';
+import { PollModel, PollShareModel } from './poll';
+import { ImportModel, ChangeLogModel } from './import-record';
 
 export { UserModel, InvitationModel, PasswordResetModel, ApiTokenModel, MailMessageModel };
+export { ElectionModel, ContestModel, OptionModel, PollsterModel, PollsterAliasModel, SponsorModel, PollModel, PollShareModel, ImportModel, ChangeLogModel };
 
 const initialisers: Array<(s: Sequelize) => void> = [
   (s) => UserModel.initModel(s),
@@ -13,6 +20,16 @@ const initialisers: Array<(s: Sequelize) => void> = [
   (s) => PasswordResetModel.initModel(s),
   (s) => ApiTokenModel.initModel(s),
   (s) => MailMessageModel.initModel(s),
+  (s) => ElectionModel.initModel(s),
+  (s) => ContestModel.initModel(s),
+  (s) => OptionModel.initModel(s),
+  (s) => PollsterModel.initModel(s),
+  (s) => PollsterAliasModel.initModel(s),
+  (s) => SponsorModel.initModel(s),
+  (s) => PollModel.initModel(s),
+  (s) => PollShareModel.initModel(s),
+  (s) => ImportModel.initModel(s),
+  (s) => ChangeLogModel.initModel(s),
 ];
 
 /** Binds every model class to this Sequelize instance. */
