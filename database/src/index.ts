@@ -1,1 +1,2 @@
 export { createMigrator, type Migration, type MigrationContext } from './migrator';
+export * from './demo';

@@ -1,5 +1,7 @@
 import { ConfigError, loadConfig } from '../config';
 import { ensureFirstAdmin, startServer } from '../bootstrap';
+import { loadDemo } from '../commands/load-demo';
+import { UserModel } from '../db/models';
 
 async function main() {
   const config = loadConfig();
@@ -13,6 +15,12 @@ async function main() {
         console.log('  This password is shown only once; change it after signing in.\n');
       } else if (admin) {
         ctx.logger.info(`first admin ${admin.email} created from ADMIN_PASSWORD`);
+      }
+      if (config.LOAD_DEMO) {
+        const owner = await UserModel.findOne({ where: { role: 'admin' }, order: [['id', 'ASC']] });
+        const started = Date.now();
+        const demo = await loadDemo(ctx.sequelize, owner?.id ?? null);
+        if (demo.loaded) console.log(`  Loaded the fictional demo scenario (${demo.polls} polls) in ${((Date.now() - started) / 1000).toFixed(1)} s.`);
       }
     },
   });

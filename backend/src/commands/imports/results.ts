@@ -87,8 +87,10 @@ export async function importResults(sequelize: Sequelize, buffer: Buffer, opts: 
     if (sourceUrl && !isUrl(sourceUrl)) c.add(index, 'source_url', 'bad_url', `source_url "${sourceUrl}" must be an http(s) URL`);
     if (status === 'certified' && !sourceUrl) c.add(index, 'source_url', 'required', 'a certified result needs a source (source_url)');
     if (status === 'certified' && !canCertify) c.add(index, 'status', 'role_required', 'marking a result certified needs the reviewer role; import it as provisional');
-    const kind = get('contest_kind').toLowerCase() || null;
-    if (kind && kind !== 'candidate' && kind !== 'referendum') c.add(index, 'contest_kind', 'bad_kind', `contest_kind "${kind}" must be candidate or referendum`);
+    const kindRaw = get('contest_kind').toLowerCase();
+    // national, province and race are accepted as synonyms of a candidate race.
+    const kind = ['national', 'province', 'race', 'candidate'].includes(kindRaw) ? 'candidate' : kindRaw || null;
+    if (kind && kind !== 'candidate' && kind !== 'referendum') c.add(index, 'contest_kind', 'bad_kind', `contest_kind "${kindRaw}" must be candidate or referendum`);
     const optionKey = key('option_key');
     if (optionKey === 'undecided') c.add(index, 'option_key', 'reserved_key', 'undecided is reserved for poll data and cannot have votes');
     rows.push({
@@ -122,7 +124,8 @@ export async function importResults(sequelize: Sequelize, buffer: Buffer, opts: 
     const e = firstOfElection.get(r.electionKey);
     if (!e) firstOfElection.set(r.electionKey, r);
     else {
-      for (const [field, column] of [['electionDate', 'election_date'], ['electionName', 'election_name'], ['jurisdiction', 'jurisdiction']] as const) {
+      // jurisdiction may name a contest's own area (a province); the election keeps the first one given.
+      for (const [field, column] of [['electionDate', 'election_date'], ['electionName', 'election_name']] as const) {
         if (e[field] !== r[field]) c.add(r.index, column, 'inconsistent', `${column} "${r[field]}" differs from "${e[field]}" given for election ${r.electionKey} on row ${csv.lineOf(e.index)}`);
       }
     }
