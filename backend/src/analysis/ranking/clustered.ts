@@ -61,7 +61,7 @@ export function clusteredMean(
   }
   requireLevel('level', level);
   const n = values.length;
-  const ybar = sum(values as number[]) / n;
+  const ybar = sum(values) / n;
   const scores = new Map<string | number, number[]>();
   values.forEach((y, i) => {
     const g = clusters[i] as string | number;

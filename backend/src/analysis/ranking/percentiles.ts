@@ -54,8 +54,8 @@ export function percentileInvertedCdf(values: readonly number[], p: number): num
 
 /**
  * Central percentile interval at `level` (default 0.95): the percentiles at
- * (1 − level)/2 and (1 + level)/2, by `method` ('linear' = type 7,
- * 'inverted_cdf' = type 1).
+ * (1 − level)/2 and (1 + level)/2 (rounded to 12 decimals, so 0.95 gives exactly
+ * 0.025 and 0.975), by `method` ('linear' = type 7, 'inverted_cdf' = type 1).
  *
  * @throws MetricInputError `values`, `level` (not strictly between 0 and 1).
  * @example
@@ -80,10 +80,13 @@ export function intervalOfSorted(
   level: number,
   method: 'linear' | 'inverted_cdf',
 ): Interval {
-  const lowP = (1 - level) / 2;
-  const highP = (1 + level) / 2;
+  // (1 − 0.95)/2 is 0.025000000000000022 in binary floating point, which would
+  // push ⌈n·p⌉ one order statistic up when n·0.025 is an integer; the tail
+  // probabilities are therefore rounded to 12 decimals first.
+  const lowP = Math.round(((1 - level) / 2) * 1e12) / 1e12;
+  const highP = Math.round(((1 + level) / 2) * 1e12) / 1e12;
   if (method === 'linear') {
-    return [quantileSorted(sorted as number[], lowP), quantileSorted(sorted as number[], highP)];
+    return [quantileSorted(sorted, lowP), quantileSorted(sorted, highP)];
   }
   return [invertedCdfSorted(sorted, lowP), invertedCdfSorted(sorted, highP)];
 }

@@ -103,7 +103,7 @@ export function pooledWithinVariance(groups: readonly (readonly number[])[]): {
     requireArray(`groups[${gi}]`, g, 1);
     g.forEach((x, i) => requireFinite(`groups[${gi}][${i}]`, x));
     n += g.length;
-    const m = sum(g as number[]) / g.length;
+    const m = sum(g) / g.length;
     return sum(g.map((x) => (x - m) ** 2));
   });
   const df = n - groups.length;
