@@ -53,7 +53,15 @@ function tOf(r: number, n: number): { t: number | null; p: number } {
   return { t, p: tTwoSidedP(t, n - 2) };
 }
 
-const clampUnit = (r: number): number => Math.min(1, Math.max(-1, r));
+/**
+ * Keeps r in [−1, 1] and reports values within 1e-13 of ±1 as exactly ±1: they are rounding of
+ * a perfect (rank) correlation, whose t statistic is infinite.
+ */
+const clampUnit = (r: number): number => {
+  if (r >= 1 - 1e-13) return 1;
+  if (r <= -1 + 1e-13) return -1;
+  return r;
+};
 
 /**
  * Pearson's product-moment correlation with a t test and a Fisher-z 95% interval.
