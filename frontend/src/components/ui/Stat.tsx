@@ -20,6 +20,8 @@ export function Stat({ label, value, hint, className }: StatProps) {
   );
 }
 
-export function StatGroup({ children, className }: { children: ReactNode; className?: string }) {
-  return <dl className={cn('grid gap-3 sm:grid-cols-2 lg:grid-cols-4', className)}>{children}</dl>;
+const GROUP_COLUMNS = { 2: 'sm:grid-cols-2', 3: 'sm:grid-cols-3', 4: 'sm:grid-cols-2 lg:grid-cols-4' } as const;
+
+export function StatGroup({ children, columns = 4, className }: { children: ReactNode; columns?: 2 | 3 | 4; className?: string }) {
+  return <dl className={cn('grid gap-3', GROUP_COLUMNS[columns], className)}>{children}</dl>;
 }

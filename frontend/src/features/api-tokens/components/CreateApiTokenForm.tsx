@@ -12,23 +12,21 @@ function NewTokenSecret({ created, onDismiss }: { created: ApiTokenCreated; onDi
         This is the only time Veracast shows it; only a hash of it is kept. Store it where your scripts can read it,
         and never commit it to a repository.
       </Alert>
-      <div className="space-y-1.5">
-        <p className="text-sm font-medium text-ink-800" id="new-token-label">
-          Token “{created.name}”
-        </p>
-        <div className="flex flex-wrap items-center gap-3">
-          <code
-            aria-labelledby="new-token-label"
-            className="rounded-md border border-ink-300 bg-ink-100 px-3 py-2 font-mono text-sm break-all text-ink-950 select-all"
-          >
-            {created.token}
-          </code>
-          <CopyButton value={created.token} label="Copy token" />
-        </div>
-        <p className="text-sm text-ink-600">
-          Send it as <code className="font-mono">Authorization: Bearer &lt;token&gt;</code>.
-        </p>
+      <div className="flex flex-wrap items-end gap-3">
+        <Input
+          label={`New token “${created.name}”`}
+          value={created.token}
+          readOnly
+          onFocus={(event) => event.currentTarget.select()}
+          className="font-mono"
+          fieldClassName="min-w-0 flex-1"
+          spellCheck={false}
+        />
+        <CopyButton value={created.token} label="Copy token" />
       </div>
+      <p className="text-sm text-ink-600">
+        Send it as <code className="font-mono">Authorization: Bearer &lt;token&gt;</code>.
+      </p>
       <Button variant="secondary" onClick={onDismiss}>
         I have stored it
       </Button>

@@ -16,7 +16,7 @@ export function HealthStatus() {
 
   const { status, database, version } = health.data;
   return (
-    <StatGroup className="lg:grid-cols-3">
+    <StatGroup columns={3}>
       <Stat label="Service" value={status === 'ok' ? 'Working' : 'Degraded'} hint={status === 'ok' ? undefined : 'Some requests may fail.'} />
       <Stat label="Database" value={database === 'up' ? 'Reachable' : 'Unreachable'} />
       <Stat label="Version" value={<span className="font-mono text-lg">{version}</span>} />
