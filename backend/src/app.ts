@@ -17,6 +17,7 @@ import { apiTokensRouter } from './routes/api-tokens/router';
 import { mailboxRouter } from './routes/mailbox/router';
 import { healthRouter } from './routes/health/router';
 import { importsRouter } from './routes/imports/router';
+import { auditsRouter } from './routes/audits/router';
 import { openApiDocument } from './openapi';
 
 const defaultDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../frontend/dist');
@@ -59,6 +60,7 @@ export function createApp(ctx: AppContext): Express {
   api.use('/api-tokens', apiTokensRouter());
   api.use('/admin/mailbox', mailboxRouter());
   api.use('/imports', importsRouter(ctx));
+  api.use('/audits', auditsRouter(ctx));
   api.use((_req, _res, next) => next(notFound('API route')));
   app.use(API_PREFIX, api);
 

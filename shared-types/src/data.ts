@@ -210,3 +210,45 @@ export interface QualityIssueDto {
   severity: 'warning' | 'info';
   electionKey: string | null; contestKey: string | null; pollKeys: string[]; message: string;
 }
+
+export const UNDECIDED_TREATMENTS = ['raw', 'proportional', 'two_party'] as const;
+export type UndecidedTreatment = (typeof UNDECIDED_TREATMENTS)[number];
+
+export const auditCreateSchema = z.object({
+  name: z.string().trim().min(1, 'name is required').max(200, 'name must be at most 200 characters'),
+  electionKeys: z.array(keySchema).min(1, 'choose at least one election').max(200),
+  windowDays: z.number().int('windowDays must be a whole number').min(0, 'windowDays must be 0 or more').max(3650).default(21),
+  finalOnly: z.boolean().default(true),
+  undecided: z.enum(UNDECIDED_TREATMENTS).default('raw'),
+  minPolls: z.number().int('minPolls must be a whole number').min(1, 'minPolls must be at least 1').max(1000).default(5),
+  designEffect: z.number().min(1, 'designEffect must be at least 1').max(10, 'designEffect must be at most 10').default(1),
+});
+export type AuditCreate = z.input<typeof auditCreateSchema>;
+export type AuditSettings = z.output<typeof auditCreateSchema>;
+
+/** One poll of an audit (SPEC §7 shape plus the inputs it came from). */
+export interface AuditPollDto {
+  pollKey: string; contestKey: string; electionKey: string; pollsterId: number; pollster: string;
+  refA: string | null; refB: string | null; refBasis: 'blocs' | 'top_two' | null;
+  marginError: number | null; absMarginError: number | null; lean: 'A' | 'B' | 'none' | null;
+  mosteller3: number | null; mosteller5: number | null; mtkA: number | null; mtkSe: number | null; mtkP: number | null;
+  aeB: number | null; aeBw: number | null; winnerCalled: boolean | null; shareCovered: boolean | null; marginCovered: boolean | null;
+  daysOut: number | null; daysOutEnd: number | null; undecidedShare: number | null; twoPartyShareError: number | null;
+  inWindow: boolean; isFinal: boolean; fieldworkEnd: string; sampleSize: number; population: Population; mode: Mode;
+  sponsorType: SponsorType | null; disclosure: number; nEff: number | null; pollA: number | null; pollB: number | null;
+  resultA: number | null; resultB: number | null; notes: string[]; error: string | null;
+}
+
+export interface AuditHeadline {
+  pollsUsed: number; pollsTotal: number; meanAbsMarginError: number | null; meanSignedError: number | null;
+  meanSignedErrorInterval: [number, number] | null; signedDirection: string | null;
+  marginCoverage: number | null; shareCoverage: number | null; winnerCalledRate: number | null; calls: number; noCalls: number;
+  notComputable: number;
+}
+
+export interface AuditDto {
+  id: number; name: string; settings: AuditSettings; dataHash: string; coreVersion: string; pollCount: number;
+  createdAt: string; createdBy: string | null; rerunOf: number | null; outOfDate: boolean; currentHash: string | null;
+  elections: { key: string; name: string; date: string; blocA: string | null; blocB: string | null; fictional: boolean }[];
+  headline: AuditHeadline; fictional: boolean;
+}

@@ -1,0 +1,158 @@
+import type { AuditHeadline, AuditPollDto, AuditSettings } from '@veracast/shared-types';
+import { computePollMetrics } from '../../analysis/metrics';
+import { MetricInputError } from '../../analysis/errors';
+import { clusteredMean, computeScorecards, type ScorecardPoll } from '../../analysis/ranking';
+import { computeSharedError, type SharedErrorPoll } from '../../analysis/shared-error';
+import { disclosureOf, orientationOf, type ContestRow, type ElectionRow } from '../../queries/archive';
+import type { AuditInputs } from './inputs';
+
+const mean = (xs: readonly number[]) => (xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : null);
+const rate = (xs: readonly (boolean | null)[]) => {
+  const known = xs.filter((x): x is boolean => x !== null);
+  return known.length ? known.filter(Boolean).length / known.length : null;
+};
+
+/** Every poll of the audit's elections with its metrics and the inWindow / isFinal flags. */
+export function computeAuditPolls(inputs: AuditInputs, settings: AuditSettings): AuditPollDto[] {
+  const electionById = new Map(inputs.elections.map((e) => [e.id, e]));
+  const contestById = new Map(inputs.contests.map((c) => [c.id, c]));
+  const orientation = new Map(inputs.elections.map((e) => [e.id, orientationOf(e, inputs.contests)]));
+  const items: AuditPollDto[] = [];
+  for (const p of inputs.polls) {
+    const contest = contestById.get(p.contestId)!;
+    const election = electionById.get(contest.electionId)!;
+    const o = orientation.get(election.id)!;
+    const windowStart = shiftDays(election.date, -settings.windowDays);
+    const base = {
+      pollKey: p.key, contestKey: contest.key, electionKey: election.key, pollsterId: p.pollsterId, pollster: p.pollster,
+      inWindow: p.fieldworkEnd >= windowStart && p.fieldworkEnd <= election.date, isFinal: false, fieldworkEnd: p.fieldworkEnd,
+      sampleSize: p.sampleSize, population: p.population, mode: p.mode, sponsorType: p.sponsorType, disclosure: disclosureOf(p).completeness,
+    };
+    const empty = {
+      refA: null, refB: null, refBasis: null, marginError: null, absMarginError: null, lean: null, mosteller3: null, mosteller5: null, mtkA: null,
+      mtkSe: null, mtkP: null, aeB: null, aeBw: null, winnerCalled: null, shareCovered: null, marginCovered: null, daysOut: null, daysOutEnd: null,
+      undecidedShare: null, twoPartyShareError: null, nEff: null, pollA: null, pollB: null, resultA: null, resultB: null, notes: [] as string[],
+    };
+    if (!contest.options.some((x) => (x.votes ?? 0) > 0)) {
+      items.push({ ...base, ...empty, error: `contest ${contest.key} has no result yet` });
+      continue;
+    }
+    try {
+      const m = computePollMetrics(
+        { n: p.sampleSize, moe: p.moe, fieldworkStart: p.fieldworkStart, fieldworkEnd: p.fieldworkEnd, shares: p.shares },
+        { options: contest.options.map((x) => ({ key: x.key, bloc: x.bloc, votes: x.votes ?? 0 })), orientation: o.blocA && o.blocB ? [o.blocA, o.blocB] : null, electionDate: election.date },
+        { undecided: settings.undecided, designEffect: settings.designEffect },
+      );
+      items.push({
+        ...base, refA: m.refA, refB: m.refB, refBasis: m.refBasis, marginError: m.marginError, absMarginError: m.absMarginError, lean: m.lean,
+        mosteller3: m.mosteller3, mosteller5: m.mosteller5, mtkA: m.mtkA, mtkSe: m.mtkSe, mtkP: m.mtkP, aeB: m.aeB, aeBw: m.aeBw,
+        winnerCalled: m.winnerCalled, shareCovered: m.shareCovered, marginCovered: m.marginCovered, daysOut: m.daysOut, daysOutEnd: m.daysOutEnd,
+        undecidedShare: m.undecidedShare, twoPartyShareError: m.twoPartyShareError, nEff: m.nEff, pollA: m.pollA, pollB: m.pollB,
+        resultA: m.resultA, resultB: m.resultB, notes: m.notes, error: null,
+      });
+    } catch (err) {
+      if (!(err instanceof MetricInputError)) throw err;
+      items.push({ ...base, ...empty, error: err.message });
+    }
+  }
+  markFinal(items, inputs);
+  return items;
+}
+
+/**
+ * A firm's final poll per contest (SPEC §5): among its headline polls in the window, the latest
+ * fieldwork end, then the latest publication date, then the greatest poll key.
+ */
+function markFinal(items: AuditPollDto[], inputs: AuditInputs) {
+  const poll = new Map(inputs.polls.map((p) => [p.key, p]));
+  const best = new Map<string, AuditPollDto>();
+  for (const it of items) {
+    const p = poll.get(it.pollKey)!;
+    if (!it.inWindow || !p.isHeadline) continue;
+    const k = `${it.pollsterId}\u0000${it.contestKey}`;
+    const cur = best.get(k);
+    if (!cur) {
+      best.set(k, it);
+      continue;
+    }
+    const q = poll.get(cur.pollKey)!;
+    const later = p.fieldworkEnd !== q.fieldworkEnd ? p.fieldworkEnd > q.fieldworkEnd : p.publishedOn !== q.publishedOn ? p.publishedOn > q.publishedOn : p.key > q.key;
+    if (later) best.set(k, it);
+  }
+  for (const it of best.values()) it.isFinal = true;
+}
+
+/** The polls the scorecards and analyses use: in the window, final when the audit says so, computable. */
+export const usedPolls = (items: readonly AuditPollDto[], settings: Pick<AuditSettings, 'finalOnly'>) =>
+  items.filter((i) => i.inWindow && (!settings.finalOnly || i.isFinal) && i.error === null && i.marginError !== null);
+
+export function headline(items: readonly AuditPollDto[], settings: AuditSettings, elections: readonly ElectionRow[], contests: readonly ContestRow[]): AuditHeadline {
+  const used = usedPolls(items, settings);
+  const oriented = used.filter((i) => i.refBasis === 'blocs');
+  let interval: [number, number] | null = null;
+  let meanSigned: number | null = mean(oriented.map((i) => i.marginError!));
+  if (oriented.length >= 2 && new Set(oriented.map((i) => i.contestKey)).size >= 2) {
+    try {
+      const cm = clusteredMean(oriented.map((i) => i.marginError!), oriented.map((i) => i.contestKey));
+      meanSigned = cm.mean;
+      interval = [cm.interval[0], cm.interval[1]];
+    } catch (err) {
+      if (!(err instanceof MetricInputError)) throw err;
+    }
+  }
+  let direction: string | null = null;
+  if (meanSigned !== null && elections.length) {
+    const blocs = new Set(elections.map((e) => { const o = orientationOf(e, contests); return `${o.blocA} over ${o.blocB}`; }));
+    const pair = blocs.size === 1 ? [...blocs][0]! : 'bloc A over bloc B (each election its own pair)';
+    const [a, b] = pair.split(' over ');
+    direction = meanSigned > 0 ? `polls overstated ${a} against ${b}` : meanSigned < 0 ? `polls understated ${a} against ${b}` : 'no net lean';
+  }
+  const calls = used.filter((i) => i.winnerCalled !== null);
+  return {
+    pollsUsed: used.length, pollsTotal: items.length, meanAbsMarginError: mean(used.map((i) => i.absMarginError!)), meanSignedError: meanSigned,
+    meanSignedErrorInterval: interval, signedDirection: direction, marginCoverage: rate(used.map((i) => i.marginCovered)),
+    shareCoverage: rate(used.map((i) => i.shareCovered)), winnerCalledRate: rate(used.map((i) => i.winnerCalled)), calls: calls.length,
+    noCalls: used.length - calls.length, notComputable: items.filter((i) => i.error !== null).length,
+  };
+}
+
+export const seedOf = (dataHash: string) => parseInt(dataHash.slice(0, 8), 16);
+
+export function scorecardsFor(items: readonly AuditPollDto[], settings: AuditSettings, seed: number) {
+  const polls: ScorecardPoll[] = usedPolls(items, settings).map((i) => ({
+    pollKey: i.pollKey, pollster: i.pollsterId, pollsterName: i.pollster, contestKey: i.contestKey, electionKey: i.electionKey,
+    signedError: i.marginError!, absMarginError: i.absMarginError!, winnerCalled: i.winnerCalled, marginCovered: i.marginCovered,
+    shareCovered: i.shareCovered, disclosure: i.disclosure,
+  }));
+  if (!polls.length) return { items: [], field: null };
+  return computeScorecards(polls, { minPolls: settings.minPolls, seed, draws: 1000 });
+}
+
+/** Margin sampling variance in points² from the poll's effective n (one multinomial sample). */
+const marginVariance = (pA: number, pB: number, nEff: number) => (10_000 * (pA / 100 + pB / 100 - ((pA - pB) / 100) ** 2)) / nEff;
+
+export function sharedErrorFor(items: readonly AuditPollDto[], settings: AuditSettings, electionKey: string) {
+  const used = usedPolls(items, settings).filter((i) => i.electionKey === electionKey);
+  const oriented = used.filter((i) => i.refBasis === 'blocs' && i.nEff && i.pollA !== null && i.pollB !== null);
+  const polls: SharedErrorPoll[] = oriented.map((i) => ({
+    pollKey: i.pollKey, contestKey: i.contestKey, firm: i.pollster, signedError: i.marginError!,
+    samplingVariance: marginVariance(i.pollA!, i.pollB!, i.nEff!), certifiedMargin: i.resultA! - i.resultB!,
+  }));
+  const analysis = computeSharedError({ polls });
+  const excluded = used.length - oriented.length;
+  return {
+    electionKey,
+    excludedNotOriented: excluded,
+    ...analysis,
+    warnings: [
+      ...analysis.warnings,
+      ...(excluded ? [`${excluded} poll(s) were left out: their contests do not have both of the election's orientation blocs (e.g. referendum questions), so their errors cannot be signed consistently.`] : []),
+    ],
+  };
+}
+
+function shiftDays(iso: string, days: number): string {
+  const d = new Date(`${iso}T00:00:00Z`);
+  d.setUTCDate(d.getUTCDate() + days);
+  return d.toISOString().slice(0, 10);
+}

@@ -1,0 +1,129 @@
+import { QueryTypes, type Sequelize } from 'sequelize';
+import type { ContestKind, Mode, Population, ResultStatus, SponsorType } from '@veracast/shared-types';
+import { DISCLOSURE_ITEMS, type DisclosureDto } from '@veracast/shared-types';
+
+/** Set-based loaders of the archive (elections, contests with options, polls with shares). */
+
+export interface ElectionRow {
+  id: number; key: string; name: string; date: string; jurisdiction: string; blocA: string | null; blocB: string | null;
+  blackoutStart: string | null; blackoutEnd: string | null; fictional: boolean;
+}
+export interface OptionRow { key: string; name: string; bloc: string | null; votes: number | null }
+export interface ContestRow {
+  id: number; key: string; name: string; kind: ContestKind; electionId: number; status: ResultStatus | null; certifiedOn: string | null;
+  certifyingBody: string | null; sourceUrl: string | null; rejectedBallots: number | null; electorate: number | null; options: OptionRow[];
+}
+export interface PollRow {
+  id: number; key: string; pollsterId: number; pollster: string; sponsor: string | null; sponsorType: SponsorType | null; contestId: number;
+  fieldworkStart: string; fieldworkEnd: string; publishedOn: string; sampleSize: number; population: Population; mode: Mode; moe: number | null;
+  studyKey: string | null; isHeadline: boolean; tracking: boolean; sourceUrl: string | null; questionWording: boolean; weightingStatement: boolean;
+  tablesUrl: string | null; shares: Record<string, number>;
+}
+
+const day = (v: unknown) => (v == null ? null : String(v).slice(0, 10));
+const num = (v: unknown) => (v == null ? null : Number(v));
+
+export async function loadElections(s: Sequelize, where: { keys?: string[]; ids?: number[] } = {}): Promise<ElectionRow[]> {
+  const cond = where.keys ? 'WHERE `key` IN (:keys)' : where.ids ? 'WHERE id IN (:ids)' : '';
+  if ((where.keys && !where.keys.length) || (where.ids && !where.ids.length)) return [];
+  const rows = await s.query<Record<string, unknown>>(`SELECT * FROM elections ${cond} ORDER BY election_date DESC, \`key\``, { replacements: where, type: QueryTypes.SELECT });
+  return rows.map((r) => ({
+    id: Number(r.id), key: String(r.key), name: String(r.name), date: day(r.election_date)!, jurisdiction: String(r.jurisdiction),
+    blocA: (r.bloc_a as string | null) ?? null, blocB: (r.bloc_b as string | null) ?? null, blackoutStart: day(r.blackout_start), blackoutEnd: day(r.blackout_end),
+    fictional: Boolean(Number(r.fictional)),
+  }));
+}
+
+export async function loadContests(s: Sequelize, where: { electionIds?: number[]; keys?: string[]; ids?: number[] }): Promise<ContestRow[]> {
+  const [col, vals] = where.electionIds ? ['election_id', where.electionIds] : where.keys ? ['`key`', where.keys] : ['id', where.ids ?? []];
+  if (!vals.length) return [];
+  const rows = await s.query<Record<string, unknown>>(
+    `SELECT id, \`key\`, name, kind, election_id, result_status, certified_on, certifying_body, source_url, rejected_ballots, electorate FROM contests WHERE ${col} IN (:vals) ORDER BY \`key\``,
+    { replacements: { vals }, type: QueryTypes.SELECT },
+  );
+  const contests: ContestRow[] = rows.map((r) => ({
+    id: Number(r.id), key: String(r.key), name: String(r.name), kind: r.kind as ContestKind, electionId: Number(r.election_id),
+    status: (r.result_status as ResultStatus | null) ?? null, certifiedOn: day(r.certified_on), certifyingBody: (r.certifying_body as string | null) ?? null,
+    sourceUrl: (r.source_url as string | null) ?? null, rejectedBallots: num(r.rejected_ballots), electorate: num(r.electorate), options: [],
+  }));
+  const byId = new Map(contests.map((c) => [c.id, c]));
+  if (contests.length) {
+    const opts = await s.query<Record<string, unknown>>('SELECT contest_id, `key`, name, bloc, votes FROM options WHERE contest_id IN (:ids) ORDER BY votes DESC, `key`', {
+      replacements: { ids: contests.map((c) => c.id) }, type: QueryTypes.SELECT,
+    });
+    for (const o of opts) byId.get(Number(o.contest_id))?.options.push({ key: String(o.key), name: String(o.name), bloc: (o.bloc as string | null) || null, votes: num(o.votes) });
+  }
+  return contests;
+}
+
+export async function loadPolls(s: Sequelize, where: { contestIds?: number[]; pollsterId?: number; keys?: string[] }): Promise<PollRow[]> {
+  const conds: string[] = [];
+  if (where.contestIds) {
+    if (!where.contestIds.length) return [];
+    conds.push('p.contest_id IN (:contestIds)');
+  }
+  if (where.pollsterId !== undefined) conds.push('p.pollster_id = :pollsterId');
+  if (where.keys) {
+    if (!where.keys.length) return [];
+    conds.push('p.`key` IN (:keys)');
+  }
+  const rows = await s.query<Record<string, unknown>>(
+    `SELECT p.*, f.name AS pollster_name, sp.name AS sponsor_name, sp.type AS sponsor_type FROM polls p
+     JOIN pollsters f ON f.id = p.pollster_id LEFT JOIN sponsors sp ON sp.id = p.sponsor_id
+     ${conds.length ? `WHERE ${conds.join(' AND ')}` : ''} ORDER BY p.fieldwork_end, p.\`key\``,
+    { replacements: where, type: QueryTypes.SELECT },
+  );
+  const polls: PollRow[] = rows.map((r) => ({
+    id: Number(r.id), key: String(r.key), pollsterId: Number(r.pollster_id), pollster: String(r.pollster_name), sponsor: (r.sponsor_name as string | null) ?? null,
+    sponsorType: (r.sponsor_type as SponsorType | null) ?? null, contestId: Number(r.contest_id), fieldworkStart: day(r.fieldwork_start)!, fieldworkEnd: day(r.fieldwork_end)!,
+    publishedOn: day(r.published_on)!, sampleSize: Number(r.sample_size), population: r.population as Population, mode: r.mode as Mode, moe: num(r.moe),
+    studyKey: (r.study_key as string | null) ?? null, isHeadline: Boolean(Number(r.is_headline)), tracking: Boolean(Number(r.tracking)),
+    sourceUrl: (r.source_url as string | null) ?? null, questionWording: Boolean(Number(r.question_wording)), weightingStatement: Boolean(Number(r.weighting_statement)),
+    tablesUrl: (r.tables_url as string | null) ?? null, shares: {},
+  }));
+  if (polls.length) {
+    const byId = new Map(polls.map((p) => [p.id, p]));
+    const ids = polls.map((p) => p.id);
+    for (let i = 0; i < ids.length; i += 20000) {
+      const shares = await s.query<{ poll_id: number; option_key: string; share: string }>('SELECT poll_id, option_key, share FROM poll_shares WHERE poll_id IN (:ids)', {
+        replacements: { ids: ids.slice(i, i + 20000) }, type: QueryTypes.SELECT,
+      });
+      for (const r of shares) {
+        const p = byId.get(Number(r.poll_id));
+        if (p) p.shares[r.option_key] = Number(r.share);
+      }
+    }
+  }
+  return polls;
+}
+
+/** Certified shares in points: votes over the sum of all options' votes. */
+export function certifiedShares(options: readonly OptionRow[]): Record<string, number> | null {
+  const total = options.reduce((a, o) => a + (o.votes ?? 0), 0);
+  if (!total) return null;
+  return Object.fromEntries(options.map((o) => [o.key, (100 * (o.votes ?? 0)) / total]));
+}
+
+/**
+ * An election's orientation blocs: the ones a reviewer set, else the two blocs with the most
+ * certified votes summed over its contests (A the larger) — SPEC §4.
+ */
+export function orientationOf(election: ElectionRow, contests: readonly ContestRow[]): { blocA: string | null; blocB: string | null; source: 'set' | 'default' | 'none' } {
+  if (election.blocA && election.blocB) return { blocA: election.blocA, blocB: election.blocB, source: 'set' };
+  const totals = new Map<string, number>();
+  for (const c of contests) if (c.electionId === election.id) for (const o of c.options) if (o.bloc) totals.set(o.bloc, (totals.get(o.bloc) ?? 0) + (o.votes ?? 0));
+  const ranked = [...totals].filter(([, v]) => v > 0).sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : 1));
+  if (ranked.length < 2) return { blocA: null, blocB: null, source: 'none' };
+  return { blocA: ranked[0]![0], blocB: ranked[1]![0], source: 'default' };
+}
+
+/** The standard disclosure items present in a published poll (kept apart from accuracy). */
+export function disclosureOf(p: PollRow): DisclosureDto {
+  const items = {
+    sponsor: Boolean(p.sponsor), firm: Boolean(p.pollster), fieldworkDates: Boolean(p.fieldworkStart && p.fieldworkEnd), population: Boolean(p.population),
+    sampleSize: p.sampleSize > 0, mode: Boolean(p.mode), statedMoe: p.moe != null, weightingStatement: p.weightingStatement,
+    questionWording: p.questionWording, tablesLink: Boolean(p.tablesUrl),
+  };
+  const present = DISCLOSURE_ITEMS.filter((k) => items[k]).length;
+  return { items, completeness: present / DISCLOSURE_ITEMS.length };
+}
