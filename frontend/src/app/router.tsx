@@ -14,16 +14,19 @@ import { prefetchLoader, requireUserLoader, signInLoader } from './loaders';
 import { AdminMailboxRoute, AdminMailMessageRoute } from './routes/admin-mailbox';
 import { AdminUsersRoute } from './routes/admin-users';
 import { ApiTokensRoute } from './routes/api-tokens';
-import { UNBUILT_AREAS, UnbuiltAreaRoute } from './routes/areas';
+import { electionsRoutes } from './routes/areas/elections';
+import { pollstersRoutes } from './routes/areas/pollsters';
+import { auditsRoutes } from './routes/areas/audits';
+import { sharedErrorRoutes } from './routes/areas/shared-error';
+import { importsRoutes } from './routes/areas/imports';
+import { notesRoutes } from './routes/areas/notes';
+import { dataQualityRoutes } from './routes/areas/data-quality';
 import { HomeRoute, homeLoader } from './routes/home';
 import { InvitationRoute, invitationLoader } from './routes/invitation';
 import { NotFoundRoute } from './routes/not-found';
 import { ResetPasswordConfirmRoute, ResetPasswordRequestRoute } from './routes/reset-password';
 import { RouteErrorBoundary } from './routes/route-error';
 import { SignInRoute } from './routes/sign-in';
-
-/** Areas that need more than the viewer role (SPEC §2). */
-const AREA_MINIMUM_ROLE: Partial<Record<string, 'analyst'>> = { [paths.imports.path]: 'analyst' };
 
 export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
   return [
@@ -55,14 +58,13 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               errorElement: <RouteErrorBoundary />,
               children: [
                 { index: true, loader: homeLoader(queryClient), element: <HomeRoute /> },
-                ...UNBUILT_AREAS.map((area): RouteObject => {
-                  const minimum = AREA_MINIMUM_ROLE[area.path];
-                  const screen = <UnbuiltAreaRoute title={area.title} purpose={area.purpose} />;
-                  return {
-                    path: area.path,
-                    element: minimum ? <RequireRole minimum={minimum}>{screen}</RequireRole> : screen,
-                  };
-                }),
+                ...electionsRoutes(queryClient),
+                ...pollstersRoutes(queryClient),
+                ...auditsRoutes(queryClient),
+                ...sharedErrorRoutes(queryClient),
+                ...importsRoutes(queryClient),
+                ...notesRoutes(queryClient),
+                ...dataQualityRoutes(queryClient),
                 {
                   path: paths.apiTokens.path,
                   loader: prefetchLoader(queryClient, 'viewer', () => [apiTokensQueryOptions()]),
