@@ -1,3 +1,4 @@
+/// <reference path="./types.d.ts" />
 import type { NextFunction, Request, Response } from 'express';
 import jwt from 'jsonwebtoken';
 import { roleAtLeast, type Role } from '@veracast/shared-types';
