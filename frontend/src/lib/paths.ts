@@ -31,6 +31,16 @@ export const paths = {
   elections: { path: '/elections', href: () => '/elections' },
   pollsters: { path: '/pollsters', href: () => '/pollsters' },
   audits: { path: '/audits', href: () => '/audits' },
+  auditNew: { path: '/audits/new', href: () => '/audits/new' },
+  audit: { path: '/audits/:auditId', href: (auditId: number | string) => `/audits/${encode(auditId)}` },
+  /** A poll's own page; `treatment` marks the undecided treatment the reader came from. */
+  poll: {
+    path: '/polls/:pollKey',
+    href: (pollKey: string, options: { treatment?: string } = {}) =>
+      withQuery(`/polls/${encode(pollKey)}`, { treatment: options.treatment }),
+  },
+  /** Every formula with its source; `anchor` jumps to one metric, e.g. `margin-error`. */
+  methods: { path: '/methods', href: (anchor?: string) => (anchor ? `/methods#${encode(anchor)}` : '/methods') },
   sharedError: { path: '/shared-error', href: () => '/shared-error' },
   imports: { path: '/imports', href: () => '/imports' },
   notes: { path: '/notes', href: () => '/notes' },
