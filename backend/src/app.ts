@@ -18,6 +18,11 @@ import { mailboxRouter } from './routes/mailbox/router';
 import { healthRouter } from './routes/health/router';
 import { importsRouter } from './routes/imports/router';
 import { auditsRouter } from './routes/audits/router';
+import { electionsRouter } from './routes/elections/router';
+import { contestsRouter } from './routes/contests/router';
+import { pollsRouter } from './routes/polls/router';
+import { pollstersRouter } from './routes/pollsters/router';
+import { qualityRouter } from './routes/quality/router';
 import { openApiDocument } from './openapi';
 
 const defaultDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../frontend/dist');
@@ -61,6 +66,11 @@ export function createApp(ctx: AppContext): Express {
   api.use('/admin/mailbox', mailboxRouter());
   api.use('/imports', importsRouter(ctx));
   api.use('/audits', auditsRouter(ctx));
+  api.use('/elections', electionsRouter(ctx));
+  api.use('/contests', contestsRouter(ctx));
+  api.use('/polls', pollsRouter(ctx));
+  api.use('/pollsters', pollstersRouter(ctx));
+  api.use('/quality', qualityRouter(ctx));
   api.use((_req, _res, next) => next(notFound('API route')));
   app.use(API_PREFIX, api);
 

@@ -23,7 +23,7 @@ export function toCsv(rows: readonly Record<string, unknown>[], columns?: readon
 export const wantsCsv = (req: Request) => req.query.format === 'csv';
 
 /** Answers a list as `{ items, total }`, or as CSV when `?format=csv`. */
-export function sendList<T extends object>(req: Request, res: Response, items: readonly T[], opts: { total?: number; filename?: string; columns?: readonly string[]; extra?: Record<string, unknown> } = {}) {
+export function sendList(req: Request, res: Response, items: readonly object[], opts: { total?: number; filename?: string; columns?: readonly string[]; extra?: Record<string, unknown> } = {}) {
   if (wantsCsv(req)) {
     res.type('text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', `attachment; filename="${(opts.filename ?? 'export').replace(/[^A-Za-z0-9_.-]/g, '_')}.csv"`);

@@ -215,8 +215,16 @@ export async function importResults(sequelize: Sequelize, buffer: Buffer, opts: 
 
   const importId = await sequelize.transaction(async (transaction) => {
     const esc = (v: string) => sequelize.escape(v);
-    // Elections.
-    const elections = [...new Map(usable.map((r) => [r.electionKey, r])).values()];
+    // Elections. When rows name different jurisdictions (a province's own area), the election takes
+    // the one of its largest contest by votes: the national race.
+    const contestVotes = new Map<string, number>();
+    for (const r of usable) contestVotes.set(r.contestKey, (contestVotes.get(r.contestKey) ?? 0) + r.votes);
+    const electionRow = new Map<string, ResultRow>();
+    for (const r of usable) {
+      const cur = electionRow.get(r.electionKey);
+      if (!cur || (contestVotes.get(r.contestKey) ?? 0) > (contestVotes.get(cur.contestKey) ?? 0)) electionRow.set(r.electionKey, r);
+    }
+    const elections = [...electionRow.values()];
     if (elections.length) {
       await sequelize.query(
         `INSERT INTO elections (\`key\`, name, election_date, jurisdiction) VALUES ${elections
