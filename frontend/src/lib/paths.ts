@@ -31,6 +31,19 @@ export const paths = {
   elections: { path: '/elections', href: () => '/elections' },
   pollsters: { path: '/pollsters', href: () => '/pollsters' },
   audits: { path: '/audits', href: () => '/audits' },
+  /** `filters` are the scorecard filters as search parameters (elections, kind, modes, …). */
+  auditRankings: {
+    path: '/audits/:id/rankings',
+    href: (id: number | string, filters: Record<string, string | undefined> = {}) =>
+      withQuery(`/audits/${encode(id)}/rankings`, filters),
+  },
+  auditBreakdowns: { path: '/audits/:id/breakdowns', href: (id: number | string) => `/audits/${encode(id)}/breakdowns` },
+  /** A firm's accuracy in one audit (the newest when `audit` is absent). */
+  pollsterAccuracy: {
+    path: '/pollsters/:id/accuracy',
+    href: (id: number | string, options: { audit?: number | string } = {}) =>
+      withQuery(`/pollsters/${encode(id)}/accuracy`, { audit: options.audit === undefined ? undefined : String(options.audit) }),
+  },
   auditNew: { path: '/audits/new', href: () => '/audits/new' },
   audit: { path: '/audits/:auditId', href: (auditId: number | string) => `/audits/${encode(auditId)}` },
   /** A poll's own page; `treatment` marks the undecided treatment the reader came from. */
