@@ -26,7 +26,7 @@ CONTEST_KEY <- "au-2007-house-fp"
 # ASSUMPTION (requested for this extract): the part of 100 that a poll's named shares leave over is
 # written as `undecided`. The dataset's own DK column is 0 in every row, so this remainder is in
 # fact mostly other parties and independents; set this to "other" to label it that way instead.
-REMAINDER_OPTION <- "undecided"
+REMAINDER_OPTION <- "other"
 # ASSUMPTION: Australian voting is compulsory and the polls ask enrolled voters, so no likely-voter
 # screen applies; Veracast's nearest population code is registered voters.
 POPULATION <- "rv"
