@@ -29,7 +29,11 @@ export const paths = {
   invitation: { path: '/invite/:token', href: (token: string) => `/invite/${encode(token)}` },
 
   elections: { path: '/elections', href: () => '/elections' },
+  election: { path: '/elections/:electionKey', href: (electionKey: string) => `/elections/${encode(electionKey)}` },
+  /** A contest's page: certified result, its history, and the polls against it. */
+  contest: { path: '/contests/:contestKey', href: (contestKey: string) => `/contests/${encode(contestKey)}` },
   pollsters: { path: '/pollsters', href: () => '/pollsters' },
+  pollster: { path: '/pollsters/:pollsterId', href: (pollsterId: number | string) => `/pollsters/${encode(pollsterId)}` },
   audits: { path: '/audits', href: () => '/audits' },
   /** `filters` are the scorecard filters as search parameters (elections, kind, modes, …). */
   auditRankings: {
@@ -56,8 +60,13 @@ export const paths = {
   methods: { path: '/methods', href: (anchor?: string) => (anchor ? `/methods#${encode(anchor)}` : '/methods') },
   sharedError: { path: '/shared-error', href: () => '/shared-error' },
   imports: { path: '/imports', href: () => '/imports' },
+  importRecord: { path: '/imports/:importId', href: (importId: number | string) => `/imports/${encode(importId)}` },
   notes: { path: '/notes', href: () => '/notes' },
-  dataQuality: { path: '/data-quality', href: () => '/data-quality' },
+  /** `election` narrows the checks to one election. */
+  dataQuality: {
+    path: '/data-quality',
+    href: (options: { election?: string } = {}) => withQuery('/data-quality', { election: options.election }),
+  },
 
   apiTokens: { path: '/settings/api-tokens', href: () => '/settings/api-tokens' },
 
