@@ -1,0 +1,170 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import request from 'supertest';
+import { createTestApp, type SignedInAgent, type TestApp } from '../helpers/test-app';
+import { buildPoll, buildResultRow, pollsCsv, resultsCsv } from '../helpers/factories';
+
+let t: TestApp;
+let reviewer: SignedInAgent;
+let analyst: SignedInAgent;
+let viewer: SignedInAgent;
+
+const E = 'ref-2030';
+/** Three contests whose certified shares are METHODS §1's check cases (other parties in `other`). */
+const results = [
+  ['ref-c1', [502000, 473000, 25000]],
+  ['ref-c2', [48000, 49500, 2500]],
+  ['ref-c3', [50500, 49500, 0]],
+].flatMap(([contest, votes]) =>
+  (['red', 'blue', 'other'] as const).map((option, i) =>
+    buildResultRow({ election_key: E, election_date: '2030-05-05', contest_key: contest as string, contest_name: contest as string, option_key: option, option_name: option, bloc: option === 'other' ? '' : option.toUpperCase(), votes: (votes as number[])[i]! }),
+  ),
+);
+const polls = [
+  ...buildPoll({ poll_key: 'ref-p1', contest_key: 'ref-c1', sample_size: 1000 }, { red: 48, blue: 44, other: 2, undecided: 6 }),
+  ...buildPoll({ poll_key: 'ref-p2', contest_key: 'ref-c2', sample_size: 1000 }, { red: 47, blue: 45, undecided: 8 }),
+  ...buildPoll({ poll_key: 'ref-p3', contest_key: 'ref-c3', sample_size: 1000 }, { red: 46, blue: 46, undecided: 8 }),
+  ...buildPoll({ poll_key: 'ref-early', contest_key: 'ref-c1', fieldwork_start: '2030-03-01', fieldwork_end: '2030-03-03', published_on: '2030-03-04' }, { red: 40, blue: 50, undecided: 10 }),
+  ...buildPoll({ poll_key: 'csv-1', pollster: "=cmd|' /C calc'!A0", contest_key: 'ref-c3' }, { red: 45, blue: 45 }),
+  ...buildPoll({ poll_key: 'csv-2', pollster: '+SUM(1)', contest_key: 'ref-c3' }, { red: 45, blue: 45 }),
+  ...buildPoll({ poll_key: 'csv-3', pollster: '-2+3 Research', contest_key: 'ref-c3' }, { red: 45, blue: 45 }),
+  ...buildPoll({ poll_key: 'csv-4', pollster: '@Mention Polls', contest_key: 'ref-c3' }, { red: 45, blue: 45 }),
+];
+
+async function audit(undecided: 'raw' | 'proportional' | 'two_party', extra: object = {}) {
+  const res = await analyst.post('/api/v1/audits').send({ name: `ref ${undecided}`, electionKeys: [E], undecided, finalOnly: false, ...extra }).expect(201);
+  return res.body as { id: number; dataHash: string; outOfDate: boolean };
+}
+async function pollsOf(id: number) {
+  const res = await viewer.get(`/api/v1/audits/${id}/polls`).expect(200);
+  return new Map((res.body.items as { pollKey: string }[]).map((i) => [i.pollKey, i as Record<string, unknown>]));
+}
+
+beforeAll(async () => {
+  t = await createTestApp();
+  reviewer = await t.signIn('reviewer');
+  analyst = await t.signIn('analyst');
+  viewer = await t.signIn('viewer');
+  await reviewer.post('/api/v1/imports/results').attach('file', resultsCsv(results), 'r.csv').expect(201);
+  await analyst.post('/api/v1/imports/polls').attach('file', pollsCsv(polls), 'p.csv').expect(201);
+  await reviewer.put(`/api/v1/elections/${E}/orientation`).send({ blocA: 'RED', blocB: 'BLUE' }).expect(200);
+});
+afterAll(async () => t.close());
+
+describe('POST /api/v1/audits', () => {
+  it('401 signed out, 403 for a viewer', async () => {
+    await request(t.app).post('/api/v1/audits').send({ name: 'x', electionKeys: [E] }).expect(401);
+    const res = await viewer.post('/api/v1/audits').send({ name: 'x', electionKeys: [E] }).expect(403);
+    expect(res.body.error.message).toMatch(/analyst/);
+  });
+
+  it.each([
+    [{ electionKeys: [E] }, 'name'],
+    [{ name: 'x', electionKeys: [] }, 'electionKeys'],
+    [{ name: 'x', electionKeys: [E], windowDays: -1 }, 'windowDays'],
+    [{ name: 'x', electionKeys: [E], undecided: 'ignore' }, 'undecided'],
+    [{ name: 'x', electionKeys: [E], minPolls: 0 }, 'minPolls'],
+    [{ name: 'x', electionKeys: [E], designEffect: 0.5 }, 'designEffect'],
+    [{ name: 'x', electionKeys: [E], finalOnly: 'yes' }, 'finalOnly'],
+  ])('400 naming the bad field %#', async (body, field) => {
+    const res = await analyst.post('/api/v1/audits').send(body).expect(400);
+    expect(res.body.error.details.map((d: { field: string }) => d.field)).toContain(field);
+  });
+
+  it('422 for an unknown election, 404 for an unknown audit', async () => {
+    const res = await analyst.post('/api/v1/audits').send({ name: 'x', electionKeys: ['nope-2030'] }).expect(422);
+    expect(res.body.error.message).toMatch(/nope-2030/);
+    await viewer.get('/api/v1/audits/999999').expect(404);
+  });
+});
+
+describe('the three undecided treatments end to end (METHODS §1 check cases)', () => {
+  // [computed] METHODS.md §1 table: numpy 1.24.2 / R 4.2.2; tolerance 1e-6
+  it('raw', async () => {
+    const a = await audit('raw');
+    const p = await pollsOf(a.id);
+    expect(p.get('ref-p1')!.marginError as number).toBeCloseTo(1.1, 6);
+    expect(p.get('ref-p2')!.marginError as number).toBeCloseTo(3.5, 6);
+    expect(p.get('ref-p3')!.marginError as number).toBeCloseTo(-1.0, 6);
+    expect(p.get('ref-p1')!.twoPartyShareError as number).toBeCloseTo(0.686734, 6);
+    expect(p.get('ref-p2')!.twoPartyShareError as number).toBeCloseTo(1.856187, 6);
+    expect(p.get('ref-p3')!.twoPartyShareError as number).toBeCloseTo(-0.5, 6);
+    expect([p.get('ref-p1')!.winnerCalled, p.get('ref-p2')!.winnerCalled, p.get('ref-p3')!.winnerCalled]).toEqual([true, false, null]);
+    expect(p.get('ref-p1')!.lean).toBe('A');
+    expect(p.get('ref-p3')!.lean).toBe('B');
+  });
+
+  it('proportional', async () => {
+    const p = await pollsOf((await audit('proportional')).id);
+    expect(p.get('ref-p1')!.marginError as number).toBeCloseTo(1.355319, 6);
+    expect(p.get('ref-p2')!.marginError as number).toBeCloseTo(3.673913, 6);
+    expect(p.get('ref-p3')!.marginError as number).toBeCloseTo(-1.0, 6);
+  });
+
+  it('two_party: the margin error is twice the two-party share error', async () => {
+    const p = await pollsOf((await audit('two_party')).id);
+    expect(p.get('ref-p1')!.marginError as number).toBeCloseTo(2 * 0.686734, 5);
+    expect(p.get('ref-p2')!.marginError as number).toBeCloseTo(2 * 1.856187, 5);
+    expect(p.get('ref-p3')!.marginError as number).toBeCloseTo(-1.0, 6);
+  });
+
+  it('marks the window: an early poll is outside 21 days and is never final', async () => {
+    const a = await audit('raw', { finalOnly: true });
+    const p = await pollsOf(a.id);
+    expect(p.get('ref-early')).toMatchObject({ inWindow: false, isFinal: false });
+    expect(p.get('ref-p1')).toMatchObject({ inWindow: true, isFinal: true });
+    const used = await viewer.get(`/api/v1/audits/${a.id}/polls?used=true`).expect(200);
+    expect(used.body.items.map((i: { pollKey: string }) => i.pollKey)).not.toContain('ref-early');
+  });
+});
+
+describe('frozen audits', () => {
+  it('the database refuses to change a stored audit', async () => {
+    const a = await audit('raw');
+    await expect(t.ctx.sequelize.query(`UPDATE audits SET name = 'tampered' WHERE id = ${a.id}`)).rejects.toThrow(/frozen/);
+    await expect(t.ctx.sequelize.query(`UPDATE audit_polls SET metrics = '{}' WHERE audit_id = ${a.id}`)).rejects.toThrow(/frozen/);
+  });
+
+  it('says out of date after a result changes, keeps its numbers, and a re-run makes a new audit', async () => {
+    const a = await audit('raw');
+    const before = await pollsOf(a.id);
+    expect((await viewer.get(`/api/v1/audits/${a.id}`).expect(200)).body.outOfDate).toBe(false);
+    await reviewer
+      .put('/api/v1/contests/ref-c1/result')
+      .send({ status: 'certified', certifiedOn: '2030-05-20', sourceUrl: 'https://example.org/results/2030', votes: { red: 512000 }, reason: 'Recount' })
+      .expect(200);
+    const after = (await viewer.get(`/api/v1/audits/${a.id}`).expect(200)).body;
+    expect(after.outOfDate).toBe(true);
+    expect(after.currentHash).not.toBe(a.dataHash);
+    expect((await pollsOf(a.id)).get('ref-p1')!.marginError).toBe(before.get('ref-p1')!.marginError);
+    await viewer.post(`/api/v1/audits/${a.id}/rerun`).expect(403);
+    const rerun = (await analyst.post(`/api/v1/audits/${a.id}/rerun`).expect(201)).body;
+    expect(rerun.id).not.toBe(a.id);
+    expect(rerun.rerunOf).toBe(a.id);
+    expect(rerun.dataHash).toBe(after.currentHash);
+    expect((await pollsOf(rerun.id)).get('ref-p1')!.marginError).not.toBe(before.get('ref-p1')!.marginError);
+  });
+});
+
+describe('exports', () => {
+  it('CSV neutralises cells a spreadsheet would run as formulas', async () => {
+    const a = await audit('raw');
+    const res = await viewer.get(`/api/v1/audits/${a.id}/polls?format=csv`).expect(200);
+    expect(res.headers['content-type']).toMatch(/text\/csv/);
+    for (const bad of ["=cmd|' /C calc'!A0", '+SUM(1)', '-2+3 Research', '@Mention Polls']) {
+      expect(res.text).toContain(`'${bad.replace(/"/g, '""')}`);
+      expect(res.text).not.toMatch(new RegExp(`(^|,)"?${bad.replace(/[|()+*$^.?[\]\\]/g, '\\$&')}`, 'm'));
+    }
+    // Negative numbers stay numbers.
+    expect(res.text).toMatch(/,-1(\.0+)?,/);
+  });
+
+  it('viewers read audits, polls, scorecards and shared error; signed-out callers do not', async () => {
+    const a = await audit('raw');
+    for (const path of [`/api/v1/audits/${a.id}`, `/api/v1/audits/${a.id}/polls`, `/api/v1/audits/${a.id}/scorecards`, `/api/v1/audits/${a.id}/shared-error?election=${E}`, `/api/v1/audits/${a.id}/breakdowns`, `/api/v1/audits/${a.id}/history`, '/api/v1/audits']) {
+      await viewer.get(path).expect(200);
+      await request(t.app).get(path).expect(401);
+    }
+    const missing = await viewer.get(`/api/v1/audits/${a.id}/shared-error`).expect(400);
+    expect(missing.body.error.details[0].field).toBe('election');
+  });
+});
