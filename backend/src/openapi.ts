@@ -1,5 +1,12 @@
 import { z } from 'zod';
 import {
+  auditCreateSchema,
+  contestInputSchema,
+  electionInputSchema,
+  orientationSchema,
+  pollInputSchema,
+  pollsterInputSchema,
+  resultInputSchema,
   apiTokenCreateSchema,
   invitationAcceptSchema,
   invitationCreateSchema,
@@ -43,6 +50,56 @@ describeRoutes({
   '/api-tokens/{id}': { delete: { summary: 'Revoke an API token', role: 'viewer', params: ['id'] } },
   '/admin/mailbox': { get: { summary: 'Messages kept by the local fake SMTP server', role: 'admin' } },
   '/admin/mailbox/{id}': { get: { summary: 'One message of the local mailbox', role: 'admin', params: ['id'] } },
+  '/imports/results': { post: { summary: 'Import certified or provisional results (CSV, SPEC §3); 201 summary, 422 row errors', role: 'analyst', multipart: true, query: ['dryRun', 'validOnly'] } },
+  '/imports/polls': { post: { summary: 'Import polls (CSV, long or wide layout); 201 summary, 422 row errors', role: 'analyst', multipart: true, query: ['dryRun', 'validOnly', 'layout'] } },
+  '/imports': { get: { summary: 'Every import with who ran it, counts and errors', role: 'viewer', query: ['format'] } },
+  '/imports/{id}': { get: { summary: 'One import with its row errors', role: 'viewer', params: ['id'] } },
+  '/imports/{id}/errors': { get: { summary: 'Row errors of an import (CSV with ?format=csv)', role: 'viewer', params: ['id'], query: ['format'] } },
+  '/elections': {
+    get: { summary: 'Elections with certification state and poll counts', role: 'viewer', query: ['format'] },
+    post: { summary: 'Create an election', role: 'analyst', body: electionInputSchema },
+  },
+  '/elections/{electionKey}': {
+    get: { summary: 'An election with its contests and quality warnings', role: 'viewer', params: ['electionKey'] },
+    patch: { summary: 'Edit an election', role: 'analyst', params: ['electionKey'] },
+  },
+  '/elections/{electionKey}/orientation': { put: { summary: "Set the election's orientation blocs", role: 'reviewer', params: ['electionKey'], body: orientationSchema } },
+  '/contests': { post: { summary: 'Create a contest with its options', role: 'analyst', body: contestInputSchema } },
+  '/contests/{contestKey}': { get: { summary: 'A contest: certified result, options and change history', role: 'viewer', params: ['contestKey'] } },
+  '/contests/{contestKey}/polls': { get: { summary: "The contest's polls, each with its metrics", role: 'viewer', params: ['contestKey'], query: ['undecided', 'format'] } },
+  '/contests/{contestKey}/result': { put: { summary: 'Enter or change a result (certifying needs reviewer and a source; changing a certified one needs a reason)', role: 'analyst', params: ['contestKey'], body: resultInputSchema } },
+  '/contests/{contestKey}/source-document': {
+    get: { summary: 'Download the uploaded source document', role: 'viewer', params: ['contestKey'] },
+    post: { summary: 'Upload the certifying source document (PDF, PNG or JPEG)', role: 'reviewer', params: ['contestKey'], multipart: true },
+  },
+  '/polls': {
+    get: { summary: 'Polls, filtered by contest, election or pollster', role: 'viewer', query: ['contest', 'election', 'pollster', 'format'] },
+    post: { summary: 'Create a poll with its shares', role: 'analyst', body: pollInputSchema },
+  },
+  '/polls/{pollKey}': {
+    get: { summary: 'A poll with its inputs and metrics under each undecided treatment', role: 'viewer', params: ['pollKey'] },
+    put: { summary: 'Edit a poll', role: 'analyst', params: ['pollKey'], body: pollInputSchema },
+  },
+  '/pollsters': {
+    get: { summary: 'Polling firms with aliases, sponsors and disclosure completeness', role: 'viewer', query: ['format'] },
+    post: { summary: 'Create a pollster with aliases', role: 'analyst', body: pollsterInputSchema },
+  },
+  '/pollsters/{id}': {
+    get: { summary: 'A pollster with its polls', role: 'viewer', params: ['id'] },
+    patch: { summary: 'Edit a pollster and its aliases', role: 'analyst', params: ['id'] },
+  },
+  '/quality': { get: { summary: 'Data-quality warnings', role: 'viewer', query: ['election', 'format'] } },
+  '/audits': {
+    get: { summary: 'Audits', role: 'viewer', query: ['format'] },
+    post: { summary: 'Create a frozen audit', role: 'analyst', body: auditCreateSchema },
+  },
+  '/audits/{id}': { get: { summary: 'An audit: settings, data hash, headline, out-of-date flag', role: 'viewer', params: ['id'] } },
+  '/audits/{id}/rerun': { post: { summary: 'Re-run an audit with the current data (a new audit)', role: 'analyst', params: ['id'] } },
+  '/audits/{id}/polls': { get: { summary: 'Per-poll metrics of the audit', role: 'viewer', params: ['id'], query: ['election', 'pollster', 'inWindow', 'isFinal', 'used', 'format'] } },
+  '/audits/{id}/scorecards': { get: { summary: 'Pollster scorecards with intervals and ranks', role: 'viewer', params: ['id'], query: ['elections', 'kind', 'modes', 'populations', 'sponsorTypes', 'minPolls', 'format'] } },
+  '/audits/{id}/shared-error': { get: { summary: 'Shared-error analysis of one election', role: 'viewer', params: ['id'], query: ['election', 'format', 'part'] } },
+  '/audits/{id}/breakdowns': { get: { summary: 'Error breakdowns by timing and source', role: 'viewer', params: ['id'] } },
+  '/audits/{id}/history': { get: { summary: 'Shared miss per election and the interval history supports for a poll average', role: 'viewer', params: ['id'] } },
 });
 
 function jsonSchema(schema: z.ZodType) {
