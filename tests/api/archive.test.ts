@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { createTestApp, type SignedInAgent, type TestApp } from '../helpers/test-app';
-import { buildPoll, buildResults, pollsCsv, resultsCsv } from '../helpers/factories';
+import { buildPoll, pollsCsv, resultsCsv } from '../helpers/factories';
 
 let t: TestApp;
 let reviewer: SignedInAgent;

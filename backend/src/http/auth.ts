@@ -1,7 +1,7 @@
-/// <reference path="./types.d.ts" />
 import type { NextFunction, Request, Response } from 'express';
 import jwt from 'jsonwebtoken';
 import { roleAtLeast, type Role } from '@veracast/shared-types';
+import type {} from './types';
 import { ApiTokenModel, UserModel } from '../db/models';
 import { hmac, safeEqual, sha256 } from '../services/crypto';
 import { csrfInvalid, forbidden, unauthorized } from './errors';
