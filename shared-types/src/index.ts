@@ -2,3 +2,4 @@ export * from './roles';
 export * from './auth';
 export * from './api';
 export * from './data';
+export * from './notes';

@@ -10,9 +10,11 @@ import { OptionModel } from './option';
 import { PollsterModel, PollsterAliasModel, SponsorModel } from './pollster';
 import { PollModel, PollShareModel } from './poll';
 import { ImportModel, ChangeLogModel } from './import-record';
+import { NoteModel, NoteVersionModel, NoteReviewModel } from './note';
 
 export { UserModel, InvitationModel, PasswordResetModel, ApiTokenModel, MailMessageModel };
 export { ElectionModel, ContestModel, OptionModel, PollsterModel, PollsterAliasModel, SponsorModel, PollModel, PollShareModel, ImportModel, ChangeLogModel };
+export { NoteModel, NoteVersionModel, NoteReviewModel };
 
 const initialisers: Array<(s: Sequelize) => void> = [
   (s) => UserModel.initModel(s),
@@ -30,6 +32,9 @@ const initialisers: Array<(s: Sequelize) => void> = [
   (s) => PollShareModel.initModel(s),
   (s) => ImportModel.initModel(s),
   (s) => ChangeLogModel.initModel(s),
+  (s) => NoteModel.initModel(s),
+  (s) => NoteVersionModel.initModel(s),
+  (s) => NoteReviewModel.initModel(s),
 ];
 
 /** Binds every model class to this Sequelize instance. */
