@@ -58,7 +58,19 @@ export const paths = {
   },
   /** Every formula with its source; `anchor` jumps to one metric, e.g. `margin-error`. */
   methods: { path: '/methods', href: (anchor?: string) => (anchor ? `/methods#${encode(anchor)}` : '/methods') },
-  sharedError: { path: '/shared-error', href: () => '/shared-error' },
+  /** Chooses an audit and an election; `audit` preselects an audit. */
+  sharedError: {
+    path: '/shared-error',
+    href: (options: { audit?: number | string } = {}) =>
+      withQuery('/shared-error', { audit: options.audit === undefined ? undefined : String(options.audit) }),
+  },
+  /** The shared-error analysis of one election of an audit. */
+  auditSharedError: {
+    path: '/audits/:id/shared-error/:electionKey',
+    href: (id: number | string, electionKey: string) => `/audits/${encode(id)}/shared-error/${encode(electionKey)}`,
+  },
+  /** Across the audit's elections: the shared miss of each and the archive's interval for a poll average. */
+  auditHistory: { path: '/audits/:id/history', href: (id: number | string) => `/audits/${encode(id)}/history` },
   imports: { path: '/imports', href: () => '/imports' },
   importRecord: { path: '/imports/:importId', href: (importId: number | string) => `/imports/${encode(importId)}` },
   notes: { path: '/notes', href: () => '/notes' },
