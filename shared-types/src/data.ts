@@ -237,6 +237,18 @@ export interface AuditPollDto {
   inWindow: boolean; isFinal: boolean; fieldworkEnd: string; sampleSize: number; population: Population; mode: Mode;
   sponsorType: SponsorType | null; disclosure: number; nEff: number | null; pollA: number | null; pollB: number | null;
   resultA: number | null; resultB: number | null; notes: string[]; error: string | null;
+  /** The rest of the per-poll metrics (METHODS §1–5), for a poll's own page. */
+  detail?: AuditPollDetail | null;
+}
+
+export interface AuditPollDetail {
+  treatment: UndecidedTreatment; winner: string; runnerUp: string;
+  shareErrors: Record<string, number>; mosteller3Set: string[];
+  mtkZ: number | null; mtkLower: number | null; mtkUpper: number | null;
+  aePrime: Record<string, number> | null; aeSe: Record<string, number> | null; aeChi2: number | null; aeG2: number | null;
+  aeDf: number | null; aeChi2P: number | null; aeG2P: number | null; aeMerges: string[];
+  shareInterval: [number, number] | null; marginInterval: [number, number] | null;
+  nEffBasis: 'stated_moe' | 'design_effect'; nDesign: number;
 }
 
 export interface AuditHeadline {

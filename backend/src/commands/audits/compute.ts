@@ -31,7 +31,7 @@ export function computeAuditPolls(inputs: AuditInputs, settings: AuditSettings):
     const empty = {
       refA: null, refB: null, refBasis: null, marginError: null, absMarginError: null, lean: null, mosteller3: null, mosteller5: null, mtkA: null,
       mtkSe: null, mtkP: null, aeB: null, aeBw: null, winnerCalled: null, shareCovered: null, marginCovered: null, daysOut: null, daysOutEnd: null,
-      undecidedShare: null, twoPartyShareError: null, nEff: null, pollA: null, pollB: null, resultA: null, resultB: null, notes: [] as string[],
+      undecidedShare: null, twoPartyShareError: null, nEff: null, pollA: null, pollB: null, resultA: null, resultB: null, notes: [] as string[], detail: null,
     };
     if (!contest.options.some((x) => (x.votes ?? 0) > 0)) {
       items.push({ ...base, ...empty, error: `contest ${contest.key} has no result yet` });
@@ -49,6 +49,12 @@ export function computeAuditPolls(inputs: AuditInputs, settings: AuditSettings):
         winnerCalled: m.winnerCalled, shareCovered: m.shareCovered, marginCovered: m.marginCovered, daysOut: m.daysOut, daysOutEnd: m.daysOutEnd,
         undecidedShare: m.undecidedShare, twoPartyShareError: m.twoPartyShareError, nEff: m.nEff, pollA: m.pollA, pollB: m.pollB,
         resultA: m.resultA, resultB: m.resultB, notes: m.notes, error: null,
+        detail: {
+          treatment: m.treatment, winner: m.winner, runnerUp: m.runnerUp, shareErrors: m.shareErrors, mosteller3Set: m.mosteller3Set,
+          mtkZ: m.mtkZ, mtkLower: m.mtkLower, mtkUpper: m.mtkUpper, aePrime: m.aePrime, aeSe: m.aeSe, aeChi2: m.aeChi2, aeG2: m.aeG2,
+          aeDf: m.aeDf, aeChi2P: m.aeChi2P, aeG2P: m.aeG2P, aeMerges: m.aeMerges, shareInterval: m.shareInterval,
+          marginInterval: m.marginInterval, nEffBasis: m.nEffBasis, nDesign: m.nDesign,
+        },
       });
     } catch (err) {
       if (!(err instanceof MetricInputError)) throw err;
