@@ -1,0 +1,61 @@
+import type { AuditDto } from '@veracast/shared-types';
+import { Alert, Card, LoadingState } from '../../../components/ui';
+import { describeError } from '../../../lib/api-client';
+import { auditPollsCsvUrl, useAuditPolls } from '../api/list-audit-polls';
+import { AuditCharts } from './AuditCharts';
+import { AuditHeadline } from './AuditHeadline';
+import { AuditPollsTable } from './AuditPollsTable';
+import { AuditSettingsPanel } from './AuditSettingsPanel';
+import { OutOfDateNotice } from './OutOfDateNotice';
+
+export interface AuditViewProps {
+  audit: AuditDto;
+  canRerun: boolean;
+}
+
+/** One audit: whether it is current, its headline figures, its settings, charts and every poll. */
+export function AuditView({ audit, canRerun }: AuditViewProps) {
+  const polls = useAuditPolls(audit.id);
+  return (
+    <div className="space-y-6">
+      {audit.outOfDate && <OutOfDateNotice audit={audit} canRerun={canRerun} />}
+
+      <Card title="Headline figures" description="Over the polls the audit uses. Every figure links to its formula.">
+        <AuditHeadline headline={audit.headline} finalOnly={audit.settings.finalOnly} windowDays={audit.settings.windowDays} />
+      </Card>
+
+      <Card title="Settings and inputs" description="Everything this audit was computed from. The data hash identifies the exact inputs.">
+        <AuditSettingsPanel audit={audit} />
+      </Card>
+
+      {polls.isPending ? (
+        <LoadingState label="Loading the audit’s polls…" />
+      ) : polls.isError ? (
+        <Alert tone="danger" title="The audit’s polls could not be loaded">
+          {describeError(polls.error)}
+        </Alert>
+      ) : (
+        <>
+          <section aria-labelledby="audit-charts" className="space-y-3">
+            <h2 id="audit-charts" className="text-lg font-semibold text-ink-900">
+              Charts
+            </h2>
+            <AuditCharts auditId={audit.id} polls={polls.data.items} settings={audit.settings} elections={audit.elections} />
+          </section>
+          <Card
+            title="Every poll"
+            description="Each poll with every metric. Click a column heading to sort; choose filters and columns above the table."
+          >
+            <AuditPollsTable
+              polls={polls.data.items}
+              settings={audit.settings}
+              elections={audit.elections}
+              auditId={audit.id}
+              serverCsvUrl={auditPollsCsvUrl(audit.id)}
+            />
+          </Card>
+        </>
+      )}
+    </div>
+  );
+}

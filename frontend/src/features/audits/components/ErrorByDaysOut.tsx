@@ -1,0 +1,146 @@
+import { Axis, GlyphSeries, Grid, LineSeries, Tooltip, XYChart } from '@visx/xychart';
+import { useMemo } from 'react';
+import { toCsv } from '../chart-export';
+import { formatCount, formatPoints, formatSignedPoints } from '../format';
+import { METHOD_ANCHORS } from '../method-catalogue';
+import { ChartFrame } from './ChartFrame';
+import { useChartColors, useChartTheme } from './chart-theme';
+
+export interface DaysOutPoint {
+  pollKey: string;
+  pollster: string;
+  contestKey: string;
+  daysOut: number;
+  marginError: number;
+}
+
+/** Rows shown in the table alternative; the CSV always holds them all. */
+const TABLE_LIMIT = 500;
+
+export interface ErrorByDaysOutProps {
+  points: readonly DaysOutPoint[];
+  filename: string;
+  orientation: string;
+  /** Which polls the points are, in a few words. */
+  scope: string;
+}
+
+/** Signed margin error against how long before election day the poll was in the field. */
+export function ErrorByDaysOut({ points, filename, orientation, scope }: ErrorByDaysOutProps) {
+  const colors = useChartColors();
+  const theme = useChartTheme(colors);
+  const data = useMemo(() => [...points].sort((a, b) => b.daysOut - a.daysOut), [points]);
+  const zeroLine = useMemo(() => {
+    if (data.length === 0) return [];
+    const first = data[0]!.daysOut;
+    const last = data[data.length - 1]!.daysOut;
+    return [
+      { daysOut: first, marginError: 0 },
+      { daysOut: last, marginError: 0 },
+    ];
+  }, [data]);
+
+  const csv = () =>
+    toCsv(
+      [
+        { header: 'poll_key', value: (p: DaysOutPoint) => p.pollKey },
+        { header: 'pollster', value: (p) => p.pollster },
+        { header: 'contest_key', value: (p) => p.contestKey },
+        { header: 'days_out', value: (p) => p.daysOut },
+        { header: 'margin_error_pts', value: (p) => p.marginError },
+      ],
+      data,
+    );
+
+  return (
+    <ChartFrame
+      title="Signed margin error against days out"
+      explanation={`Whether polls taken earlier missed by more, or leaned one way; ${orientation} A poll measures opinion during its fieldwork: late movement is real change, not poll error.`}
+      formulaAnchor={METHOD_ANCHORS.daysOut}
+      filename={filename}
+      csv={csv}
+      footnote={`${formatCount(data.length)} ${scope}. The dashed line marks no error.`}
+      table={
+        <table className="min-w-full text-sm">
+          <caption className="sr-only">Signed margin error and days out of each poll in the chart</caption>
+          <thead className="bg-ink-100 text-left">
+            <tr>
+              <th scope="col" className="px-3 py-2 font-semibold">Poll</th>
+              <th scope="col" className="px-3 py-2 font-semibold">Pollster</th>
+              <th scope="col" className="px-3 py-2 font-semibold">Days out</th>
+              <th scope="col" className="px-3 py-2 font-semibold">Signed margin error (pts)</th>
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-ink-100 tabular-nums">
+            {data.slice(0, TABLE_LIMIT).map((p) => (
+              <tr key={p.pollKey}>
+                <td className="px-3 py-1.5 font-mono text-xs">{p.pollKey}</td>
+                <td className="px-3 py-1.5">{p.pollster}</td>
+                <td className="px-3 py-1.5">{formatPoints(p.daysOut, 1)}</td>
+                <td className="px-3 py-1.5">{formatSignedPoints(p.marginError)}</td>
+              </tr>
+            ))}
+            {data.length > TABLE_LIMIT && (
+              <tr>
+                <td colSpan={4} className="px-3 py-2 text-ink-600">
+                  The first {TABLE_LIMIT} of {formatCount(data.length)} rows; the CSV download holds them all.
+                </td>
+              </tr>
+            )}
+          </tbody>
+        </table>
+      }
+    >
+      {data.length === 0 ? (
+        <p className="py-10 text-center text-ink-600">No poll has both a margin error and days out to show.</p>
+      ) : (
+        <XYChart
+          height={320}
+          theme={theme}
+          margin={{ top: 16, right: 16, bottom: 56, left: 56 }}
+          xScale={{ type: 'linear', nice: true, zero: true, reverse: true }}
+          yScale={{ type: 'linear', nice: true }}
+          accessibilityLabel="Scatter plot of signed margin error against days out"
+        >
+          <Grid numTicks={6} />
+          <LineSeries
+            dataKey="No error"
+            data={zeroLine}
+            xAccessor={(d) => d.daysOut}
+            yAccessor={(d) => d.marginError}
+            stroke={colors.reference}
+            strokeDasharray="6 4"
+            strokeWidth={1.5}
+          />
+          <GlyphSeries
+            dataKey="Polls"
+            data={data}
+            xAccessor={(p) => p.daysOut}
+            yAccessor={(p) => p.marginError}
+            size={6}
+            colorAccessor={() => colors.mark}
+          />
+          <Axis orientation="bottom" numTicks={6} label="Days out (election day at the right)" />
+          <Axis orientation="left" numTicks={6} label="Signed margin error (pts)" />
+          <Tooltip<DaysOutPoint>
+            snapTooltipToDatumX
+            snapTooltipToDatumY
+            renderTooltip={({ tooltipData }) => {
+              const p = tooltipData?.nearestDatum?.datum;
+              if (!p || !('pollKey' in p)) return null;
+              return (
+                <span className="block text-xs">
+                  <strong>{p.pollster}</strong>
+                  <br />
+                  {p.pollKey}
+                  <br />
+                  {formatPoints(p.daysOut, 1)} days out, error {formatSignedPoints(p.marginError)} pts
+                </span>
+              );
+            }}
+          />
+        </XYChart>
+      )}
+    </ChartFrame>
+  );
+}
