@@ -23,6 +23,7 @@ import { notesRoutes } from './routes/areas/notes';
 import { dataQualityRoutes } from './routes/areas/data-quality';
 import { HomeRoute, homeLoader } from './routes/home';
 import { InvitationRoute, invitationLoader } from './routes/invitation';
+import { MethodsRoute } from './routes/methods';
 import { NotFoundRoute } from './routes/not-found';
 import { ResetPasswordConfirmRoute, ResetPasswordRequestRoute } from './routes/reset-password';
 import { RouteErrorBoundary } from './routes/route-error';
@@ -65,6 +66,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                 ...importsRoutes(queryClient),
                 ...notesRoutes(queryClient),
                 ...dataQualityRoutes(queryClient),
+                { path: paths.methods.path, element: <MethodsRoute /> },
                 {
                   path: paths.apiTokens.path,
                   loader: prefetchLoader(queryClient, 'viewer', () => [apiTokensQueryOptions()]),
