@@ -18,6 +18,8 @@ import { mailboxRouter } from './routes/mailbox/router';
 import { healthRouter } from './routes/health/router';
 import { importsRouter } from './routes/imports/router';
 import { auditsRouter } from './routes/audits/router';
+import { notesRouter } from './routes/notes/router';
+import { publicRouter } from './routes/public/router';
 import { electionsRouter } from './routes/elections/router';
 import { contestsRouter } from './routes/contests/router';
 import { pollsRouter } from './routes/polls/router';
@@ -66,6 +68,9 @@ export function createApp(ctx: AppContext): Express {
   api.use('/admin/mailbox', mailboxRouter());
   api.use('/imports', importsRouter(ctx));
   api.use('/audits', auditsRouter(ctx));
+  api.use('/notes', notesRouter(ctx));
+  // Published notes, readable without signing in (no role check).
+  api.use('/public', publicRouter(ctx));
   api.use('/elections', electionsRouter(ctx));
   api.use('/contests', contestsRouter(ctx));
   api.use('/polls', pollsRouter(ctx));

@@ -11,6 +11,12 @@ import {
   invitationAcceptSchema,
   invitationCreateSchema,
   loginRequestSchema,
+  noteCorrectionSchema,
+  noteCreateSchema,
+  notePreviewSchema,
+  notePublishSchema,
+  noteReturnSchema,
+  noteUpdateSchema,
   passwordResetConfirmSchema,
   passwordResetRequestSchema,
   userUpdateSchema,
@@ -100,6 +106,27 @@ describeRoutes({
   '/audits/{id}/shared-error': { get: { summary: 'Shared-error analysis of one election', role: 'viewer', params: ['id'], query: ['election', 'format', 'part'] } },
   '/audits/{id}/breakdowns': { get: { summary: 'Error breakdowns by timing and source', role: 'viewer', params: ['id'] } },
   '/audits/{id}/history': { get: { summary: 'Shared miss per election and the interval history supports for a poll average', role: 'viewer', params: ['id'] } },
+});
+
+describeRoutes({
+  '/notes': {
+    get: { summary: 'Methodology notes (viewers see notes in review or published)', role: 'viewer', query: ['state', 'author', 'election', 'format'] },
+    post: { summary: 'Create a draft note (version 1)', role: 'analyst', body: noteCreateSchema },
+  },
+  '/notes/preview': { post: { summary: 'Render Markdown with live blocks to sanitised HTML, marking out-of-date audits', role: 'analyst', body: notePreviewSchema } },
+  '/notes/{id}': {
+    get: { summary: 'A note with its current version, reviews and cited audits', role: 'viewer', params: ['id'] },
+    put: { summary: 'Save a draft as a new version (author or admin)', role: 'analyst', body: noteUpdateSchema, params: ['id'] },
+  },
+  '/notes/{id}/versions': { get: { summary: 'Every version of a note', role: 'viewer', params: ['id'] } },
+  '/notes/{id}/versions/{n}': { get: { summary: 'One version with its Markdown and rendered HTML', role: 'viewer', params: ['id', 'n'] } },
+  '/notes/{id}/submit': { post: { summary: 'Submit a draft for review (author); e-mails the reviewers', role: 'analyst', params: ['id'] } },
+  '/notes/{id}/return': { post: { summary: 'Return a note in review to draft with comments (a reviewer who is not the author)', role: 'reviewer', body: noteReturnSchema, params: ['id'] } },
+  '/notes/{id}/publish': { post: { summary: 'Approve and publish a note in review (a reviewer who is not the author)', role: 'reviewer', body: notePublishSchema, params: ['id'] } },
+  '/notes/{id}/corrections': { post: { summary: 'Publish a correction as a new version with a notice (author or reviewer)', role: 'analyst', body: noteCorrectionSchema, params: ['id'] } },
+  '/public/notes': { get: { summary: 'Published notes (no sign-in)' } },
+  '/public/notes/{slug}': { get: { summary: 'A published note: frozen HTML, data hashes, corrections and cautions (no sign-in)', params: ['slug'] } },
+  '/public/notes/{slug}/pdf': { get: { summary: 'The published note as a PDF (no sign-in)', params: ['slug'] } },
 });
 
 function jsonSchema(schema: z.ZodType) {

@@ -34,7 +34,7 @@ const HEADING_SIZE: Record<string, number> = { h1: 18, h2: 15, h3: 13, h4: 11.5,
 interface Run { text: string; bold?: boolean; italic?: boolean; mono?: boolean; link?: string; strike?: boolean }
 
 /** Courier is a standard PDF font with a Latin-1 encoding; other characters become "?". */
-const latin1 = (s: string) => s.replace(/[^\u0000-\u00ff]/g, (c) => ({ '\u2212': '-', '\u2013': '-', '\u2014': '-', '\u2018': "'", '\u2019': "'", '\u201c': '"', '\u201d': '"', '\u2026': '...' })[c] ?? '?');
+const latin1 = (s: string) => s.replace(/[^\u0020-\u00ff\n\t]/g, (c) => ({ '\u2212': '-', '\u2013': '-', '\u2014': '-', '\u2018': "'", '\u2019': "'", '\u201c': '"', '\u201d': '"', '\u2026': '...' })[c] ?? '?');
 
 /**
  * Writes the PDF of a published note with pdfkit: the same frozen HTML as the public page (text,
