@@ -1,0 +1,5 @@
+export const breakdownKeys = {
+  all: ['breakdowns'] as const,
+  details: () => [...breakdownKeys.all, 'detail'] as const,
+  detail: (auditId: number) => [...breakdownKeys.details(), auditId] as const,
+};

@@ -1,0 +1,89 @@
+import { toCsv, type CsvRow } from './csv';
+
+/** A file name safe on every system: lower-case letters, digits and dashes. */
+export function fileSlug(text: string): string {
+  return (
+    text
+      .toLowerCase()
+      .normalize('NFKD')
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-+|-+$/g, '')
+      .slice(0, 80) || 'chart'
+  );
+}
+
+export function downloadBlob(blob: Blob, fileName: string): void {
+  const url = URL.createObjectURL(blob);
+  const link = document.createElement('a');
+  link.href = url;
+  link.download = fileName;
+  link.rel = 'noopener';
+  link.style.display = 'none';
+  document.body.append(link);
+  link.click();
+  link.remove();
+  // Give the browser time to start the download before the address is released.
+  setTimeout(() => URL.revokeObjectURL(url), 10_000);
+}
+
+export function downloadCsv(rows: readonly CsvRow[], fileName: string, columns?: readonly string[]): void {
+  // The byte-order mark makes spreadsheet programs read the file as UTF-8 (names, minus signs).
+  downloadBlob(new Blob(['\uFEFF', toCsv(rows, columns)], { type: 'text/csv;charset=utf-8' }), fileName);
+}
+
+const SVG_NS = 'http://www.w3.org/2000/svg';
+
+/**
+ * A standalone copy of a chart's SVG: explicit size, a white background, the title as `<title>`,
+ * a font family, and colours already resolved to plain values by the chart palette.
+ */
+export function serializeChartSvg(svg: SVGSVGElement, title: string): { text: string; width: number; height: number } {
+  const width = Number(svg.getAttribute('width')) || svg.getBoundingClientRect().width || 640;
+  const height = Number(svg.getAttribute('height')) || svg.getBoundingClientRect().height || 320;
+  const copy = svg.cloneNode(true) as SVGSVGElement;
+  copy.setAttribute('xmlns', SVG_NS);
+  copy.setAttribute('width', String(width));
+  copy.setAttribute('height', String(height));
+  copy.setAttribute('viewBox', `0 0 ${width} ${height}`);
+  copy.setAttribute('font-family', 'Work Sans, Helvetica, Arial, sans-serif');
+  copy.removeAttribute('class');
+  const background = document.createElementNS(SVG_NS, 'rect');
+  background.setAttribute('width', '100%');
+  background.setAttribute('height', '100%');
+  background.setAttribute('fill', '#ffffff');
+  const titleNode = document.createElementNS(SVG_NS, 'title');
+  titleNode.textContent = title;
+  copy.insertBefore(background, copy.firstChild);
+  copy.insertBefore(titleNode, copy.firstChild);
+  const text = `<?xml version="1.0" encoding="UTF-8"?>\n${new XMLSerializer().serializeToString(copy)}`;
+  return { text, width, height };
+}
+
+export function downloadSvg(svg: SVGSVGElement, title: string, fileName: string): void {
+  const { text } = serializeChartSvg(svg, title);
+  downloadBlob(new Blob([text], { type: 'image/svg+xml;charset=utf-8' }), fileName);
+}
+
+/** Draws the chart's SVG on a canvas at twice its size and saves it as PNG. */
+export async function downloadPng(svg: SVGSVGElement, title: string, fileName: string): Promise<void> {
+  const { text, width, height } = serializeChartSvg(svg, title);
+  const scale = 2;
+  const image = new Image();
+  const loaded = new Promise<void>((resolve, reject) => {
+    image.onload = () => resolve();
+    image.onerror = () => reject(new Error('The chart could not be drawn as an image.'));
+  });
+  image.src = `data:image/svg+xml;charset=utf-8,${encodeURIComponent(text)}`;
+  await loaded;
+  const canvas = document.createElement('canvas');
+  canvas.width = Math.round(width * scale);
+  canvas.height = Math.round(height * scale);
+  const context = canvas.getContext('2d');
+  if (!context) throw new Error('This browser cannot draw images.');
+  context.fillStyle = '#ffffff';
+  context.fillRect(0, 0, canvas.width, canvas.height);
+  context.drawImage(image, 0, 0, canvas.width, canvas.height);
+  const blob = await new Promise<Blob | null>((resolve) => canvas.toBlob(resolve, 'image/png'));
+  if (!blob) throw new Error('The image could not be saved.');
+  downloadBlob(blob, fileName);
+}
