@@ -21,6 +21,8 @@ import { sharedErrorRoutes } from './routes/areas/shared-error';
 import { importsRoutes } from './routes/areas/imports';
 import { notesRoutes } from './routes/areas/notes';
 import { dataQualityRoutes } from './routes/areas/data-quality';
+import { rankingsRoutes } from './routes/areas/rankings';
+import { firmAccuracyRoutes } from './routes/areas/firm-accuracy';
 import { HomeRoute, homeLoader } from './routes/home';
 import { InvitationRoute, invitationLoader } from './routes/invitation';
 import { MethodsRoute } from './routes/methods';
@@ -66,6 +68,8 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                 ...importsRoutes(queryClient),
                 ...notesRoutes(queryClient),
                 ...dataQualityRoutes(queryClient),
+                ...rankingsRoutes(queryClient),
+                ...firmAccuracyRoutes(queryClient),
                 { path: paths.methods.path, element: <MethodsRoute /> },
                 {
                   path: paths.apiTokens.path,

@@ -18,6 +18,6 @@ export function auditQueryOptions(auditId: number) {
   });
 }
 
-export function useAudit(auditId: number) {
-  return useQuery(auditQueryOptions(auditId));
+export function useAudit(auditId: number, options: { enabled?: boolean } = {}) {
+  return useQuery({ ...auditQueryOptions(auditId), enabled: options.enabled ?? true });
 }

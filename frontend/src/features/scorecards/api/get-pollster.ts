@@ -18,6 +18,6 @@ export function pollsterProfileQueryOptions(pollsterId: number) {
   });
 }
 
-export function usePollsterProfile(pollsterId: number) {
-  return useQuery(pollsterProfileQueryOptions(pollsterId));
+export function usePollsterProfile(pollsterId: number, options: { enabled?: boolean } = {}) {
+  return useQuery({ ...pollsterProfileQueryOptions(pollsterId), enabled: options.enabled ?? true });
 }
