@@ -74,6 +74,18 @@ export const paths = {
   imports: { path: '/imports', href: () => '/imports' },
   importRecord: { path: '/imports/:importId', href: (importId: number | string) => `/imports/${encode(importId)}` },
   notes: { path: '/notes', href: () => '/notes' },
+  noteNew: { path: '/notes/new', href: () => '/notes/new' },
+  /** A note: its current version, review and correction (the review view). */
+  note: { path: '/notes/:noteId', href: (noteId: number | string) => `/notes/${encode(noteId)}` },
+  noteEdit: { path: '/notes/:noteId/edit', href: (noteId: number | string) => `/notes/${encode(noteId)}/edit` },
+  /** Two versions side by side; `a` and `b` are version numbers. */
+  noteVersions: {
+    path: '/notes/:noteId/versions',
+    href: (noteId: number | string, options: { a?: number; b?: number } = {}) =>
+      withQuery(`/notes/${encode(noteId)}/versions`, { a: options.a === undefined ? undefined : String(options.a), b: options.b === undefined ? undefined : String(options.b) }),
+  },
+  /** A published note, readable without signing in. */
+  publicNote: { path: '/public/notes/:slug', href: (slug: string) => `/public/notes/${encode(slug)}` },
   /** `election` narrows the checks to one election. */
   dataQuality: {
     path: '/data-quality',
