@@ -15,7 +15,7 @@ export {
   type MethodSection,
   type MethodSource,
 } from './method-catalogue';
-export { SETTING_HELP, UNDECIDED_HELP, UNDECIDED_LABELS } from './settings-text';
+export { SETTING_HELP, UNDECIDED_LABELS } from './settings-text';
 export { AuditsTable } from './components/AuditsTable';
 export { AuditView, type AuditViewProps } from './components/AuditView';
 export { CreateAuditForm, type CreateAuditFormProps } from './components/CreateAuditForm';

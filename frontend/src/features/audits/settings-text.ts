@@ -12,13 +12,8 @@ export const SETTING_HELP = {
   elections: 'The audit measures every poll of these elections against their certified results.',
   windowDays: 'A poll counts when its fieldwork ended this many days or fewer before election day (0 = election day).',
   finalOnly: 'Count only each pollster’s last poll of a contest in the window, so busy firms do not weigh more.',
-  undecided: 'How respondents who named no option are handled before errors are computed; never compare audits with different treatments.',
+  undecided: 'How respondents who named no option are handled; never compare errors made under different treatments.',
   designEffect: 'Widens the intervals of polls that state no margin of error: effective sample = n ÷ design effect (1 = simple random sample).',
   minPolls: 'A pollster needs at least this many used polls to be ranked; firms with fewer are shown but not ranked.',
 } as const;
 
-export const UNDECIDED_HELP: Record<UndecidedTreatment, string> = {
-  raw: 'Published shares as they are; the usual basis of margin error in post-mortems.',
-  proportional: 'Each named option’s share divided by (1 − undecided), as if the undecided split like the decided.',
-  two_party: 'A’s share of A + B only; third options drop out, as in academic error models.',
-};

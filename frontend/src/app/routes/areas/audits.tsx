@@ -112,8 +112,8 @@ export function AuditRoute() {
   return <AuditPage key={id.data} id={id.data} />;
 }
 
-function explainMetric(anchor: string) {
-  return isMethodAnchor(anchor) ? <MetricExplanation anchor={anchor} /> : null;
+function explainMetric(anchor: string, about?: string) {
+  return isMethodAnchor(anchor) ? <MetricExplanation anchor={anchor} text={about} /> : about;
 }
 
 function isTreatment(value: string | null): value is UndecidedTreatment {

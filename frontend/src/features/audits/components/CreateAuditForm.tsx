@@ -9,9 +9,13 @@ import { createAuditInputSchema, useCreateAudit } from '../api/create-audit';
 import { useElectionChoices } from '../api/list-election-choices';
 import { formatCount } from '../format';
 import { METHOD_ANCHORS } from '../method-catalogue';
-import { SETTING_HELP, UNDECIDED_HELP, UNDECIDED_LABELS } from '../settings-text';
+import { SETTING_HELP, UNDECIDED_LABELS } from '../settings-text';
 import { FictionalLabel } from './FictionalLabel';
 import { FormulaLink } from './FormulaLink';
+
+function plural(count: number, noun: string): string {
+  return `${formatCount(count)} ${count === 1 ? noun : `${noun}s`}`;
+}
 
 /** zod's message for an empty number field is technical; say what to type instead. */
 function numberError(message: string | undefined): string | undefined {
@@ -61,7 +65,7 @@ function ElectionChoices({
               <span className="min-w-0">
                 <span className="font-medium text-ink-900">{e.name}</span>{' '}
                 <span className="text-sm text-ink-600">
-                  {formatDate(e.date)} · {formatCount(e.contestCount)} contests · {formatCount(e.pollCount)} polls
+                  {formatDate(e.date)} · {plural(e.contestCount, 'contest')} · {plural(e.pollCount, 'poll')}
                   {e.certifiedCount < e.contestCount && ` · ${formatCount(e.contestCount - e.certifiedCount)} without a certified result`}
                 </span>
                 {e.fictional && <FictionalLabel className="ml-2 align-middle text-xs" />}
@@ -124,7 +128,6 @@ export function CreateAuditForm({ onCreated }: CreateAuditFormProps) {
     },
   });
   const { errors } = form.formState;
-  const undecided = form.watch('undecided');
 
   const onSubmit = form.handleSubmit((values) => {
     create.mutate(values, { onSuccess: onCreated });
@@ -193,7 +196,7 @@ export function CreateAuditForm({ onCreated }: CreateAuditFormProps) {
           label="Undecided treatment"
           hint={
             <>
-              {UNDECIDED_HELP[undecided ?? 'raw']} {SETTING_HELP.undecided} <FormulaLink anchor={METHOD_ANCHORS.undecided} />
+              {SETTING_HELP.undecided} <FormulaLink anchor={METHOD_ANCHORS.undecided} />
             </>
           }
           error={errors.undecided?.message}

@@ -30,15 +30,23 @@ export function ErrorByDaysOut({ points, filename, orientation, scope }: ErrorBy
   const colors = useChartColors();
   const theme = useChartTheme(colors);
   const data = useMemo(() => [...points].sort((a, b) => b.daysOut - a.daysOut), [points]);
-  const zeroLine = useMemo(() => {
-    if (data.length === 0) return [];
-    const first = data[0]!.daysOut;
-    const last = data[data.length - 1]!.daysOut;
-    return [
-      { daysOut: first, marginError: 0 },
-      { daysOut: last, marginError: 0 },
-    ];
+  const domains = useMemo(() => {
+    let maxDays = 1;
+    let maxError = 1;
+    for (const p of data) {
+      maxDays = Math.max(maxDays, p.daysOut);
+      maxError = Math.max(maxError, Math.abs(p.marginError));
+    }
+    // Symmetric about zero, so a lean to either side reads at a glance; a little room at the edges.
+    return { days: Math.ceil(maxDays * 1.04 + 0.5), error: Math.ceil(maxError * 1.08) };
   }, [data]);
+  const zeroLine = useMemo(
+    () => [
+      { daysOut: domains.days, marginError: 0 },
+      { daysOut: 0, marginError: 0 },
+    ],
+    [domains],
+  );
 
   const csv = () =>
     toCsv(
@@ -55,11 +63,12 @@ export function ErrorByDaysOut({ points, filename, orientation, scope }: ErrorBy
   return (
     <ChartFrame
       title="Signed margin error against days out"
-      explanation={`Whether polls taken earlier missed by more, or leaned one way; ${orientation} A poll measures opinion during its fieldwork: late movement is real change, not poll error.`}
+      explanation="Whether polls taken further from election day missed by more, or leaned one way."
+
       formulaAnchor={METHOD_ANCHORS.daysOut}
       filename={filename}
       csv={csv}
-      footnote={`${formatCount(data.length)} ${scope}. The dashed line marks no error.`}
+      footnote={`${formatCount(data.length)} ${scope}; ${orientation} The dashed line marks no error. A poll measures opinion during its fieldwork: late movement is real change, not poll error.`}
       table={
         <table className="min-w-full text-sm">
           <caption className="sr-only">Signed margin error and days out of each poll in the chart</caption>
@@ -98,8 +107,8 @@ export function ErrorByDaysOut({ points, filename, orientation, scope }: ErrorBy
           height={320}
           theme={theme}
           margin={{ top: 16, right: 16, bottom: 56, left: 56 }}
-          xScale={{ type: 'linear', nice: true, zero: true, reverse: true }}
-          yScale={{ type: 'linear', nice: true }}
+          xScale={{ type: 'linear', domain: [0, domains.days], reverse: true }}
+          yScale={{ type: 'linear', domain: [-domains.error, domains.error] }}
           accessibilityLabel="Scatter plot of signed margin error against days out"
         >
           <Grid numTicks={6} />

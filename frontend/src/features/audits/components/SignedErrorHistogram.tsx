@@ -45,11 +45,11 @@ export function SignedErrorHistogram({ errors, filename, orientation }: SignedEr
   return (
     <ChartFrame
       title="Signed margin errors of the used polls"
-      explanation={`How many polls missed the margin by how much, in bins of ${width} pts; ${orientation}`}
+      explanation={`How many polls missed the margin by how much, in bins of ${width} pts.`}
       formulaAnchor={METHOD_ANCHORS.marginError}
       filename={filename}
       csv={csv}
-      footnote={`${formatCount(errors.length)} polls. Under sampling error alone the bars would centre on 0.`}
+      footnote={`${formatCount(errors.length)} polls; ${orientation} Under sampling error alone the bars would centre on 0.`}
       table={
         <table className="min-w-full text-sm">
           <caption className="sr-only">Signed margin errors of the used polls, counted in bins</caption>

@@ -16,6 +16,8 @@ interface MetricRow {
   label: string;
   /** Anchor of the formula on the methods page. */
   anchor: string;
+  /** What the row holds, when the formula's own line would not say it. */
+  about?: string;
   /** What the cell shows for one treatment. */
   show: (m: Metrics) => ReactNode;
 }
@@ -31,10 +33,10 @@ const INPUT_ROWS: MetricRow[] = [
     anchor: 'reference-pair',
     show: (m) => (m.refA && m.refB ? `${m.refA} vs ${m.refB}${m.refBasis === 'top_two' ? ' (certified top two)' : m.refBasis === 'blocs' ? ' (by bloc)' : ''}` : '—'),
   },
-  { label: 'Poll share of A, p_A (pts)', anchor: 'undecided-treatment', show: (m) => fixed(m.pollA) },
-  { label: 'Poll share of B, p_B (pts)', anchor: 'undecided-treatment', show: (m) => fixed(m.pollB) },
-  { label: 'Certified share of A, V_A (pts)', anchor: 'margin-error', show: (m) => fixed(m.resultA) },
-  { label: 'Certified share of B, V_B (pts)', anchor: 'margin-error', show: (m) => fixed(m.resultB) },
+  { label: 'Poll share of A, p_A (pts)', anchor: 'undecided-treatment', about: 'A’s share in the poll after this undecided treatment.', show: (m) => fixed(m.pollA) },
+  { label: 'Poll share of B, p_B (pts)', anchor: 'undecided-treatment', about: 'B’s share in the poll after this undecided treatment.', show: (m) => fixed(m.pollB) },
+  { label: 'Certified share of A, V_A (pts)', anchor: 'margin-error', about: 'A’s votes over all options’ votes (over A + B only under two-party).', show: (m) => fixed(m.resultA) },
+  { label: 'Certified share of B, V_B (pts)', anchor: 'margin-error', about: 'B’s votes over all options’ votes (over A + B only under two-party).', show: (m) => fixed(m.resultB) },
   {
     label: 'Effective sample size, n_eff',
     anchor: 'effective-n',
@@ -43,7 +45,7 @@ const INPUT_ROWS: MetricRow[] = [
         ? '—'
         : `${fixed(m.nEff, 0)}${m.nEffBasis === 'stated_moe' ? ' (from the stated MOE)' : m.nEffBasis === 'design_effect' ? ' (n ÷ design effect)' : ''}`,
   },
-  { label: 'Undecided share (pts, as published)', anchor: 'undecided-treatment', show: (m) => fixed(m.undecidedShare, 1) },
+  { label: 'Undecided share (pts, as published)', anchor: 'undecided-treatment', about: 'Respondents who named no option, as the poll published them.', show: (m) => fixed(m.undecidedShare, 1) },
   {
     label: 'Days out (midpoint; end)',
     anchor: 'days-out',
@@ -128,7 +130,7 @@ export interface PollMetricsTableProps {
   /** The treatment the reader came from (an audit's setting), marked in the table. */
   highlight?: UndecidedTreatment;
   /** What a metric measures and a link to its formula, by methods-page anchor. */
-  explain: (anchor: string) => ReactNode;
+  explain: (anchor: string, about?: string) => ReactNode;
 }
 
 function Section({ title, rows, treatments, metrics, highlight, explain }: {
@@ -137,7 +139,7 @@ function Section({ title, rows, treatments, metrics, highlight, explain }: {
   treatments: readonly UndecidedTreatment[];
   metrics: PollDetail['metrics'];
   highlight?: UndecidedTreatment;
-  explain: (anchor: string) => ReactNode;
+  explain: (anchor: string, about?: string) => ReactNode;
 }) {
   return (
     <>
@@ -150,7 +152,7 @@ function Section({ title, rows, treatments, metrics, highlight, explain }: {
         <tr key={row.label}>
           <th scope="row" className="px-3 py-2 text-left align-top font-normal">
             <span className="block font-medium text-ink-900">{row.label}</span>
-            <span className="block text-xs text-ink-600">{explain(row.anchor)}</span>
+            <span className="block text-xs text-ink-600">{explain(row.anchor, row.about)}</span>
           </th>
           {treatments.map((t) => {
             const m = metrics[t];
@@ -172,11 +174,18 @@ function Section({ title, rows, treatments, metrics, highlight, explain }: {
  */
 export function PollMetricsTable({ poll, highlight, explain }: PollMetricsTableProps) {
   const treatments = UNDECIDED_TREATMENTS.filter((t) => t in poll.metrics);
-  const notes = treatments.flatMap((t) => {
+  // A note that holds under every treatment is said once.
+  const byLine = new Map<string, UndecidedTreatment[]>();
+  for (const t of treatments) {
     const m = poll.metrics[t];
-    const lines = [m?.error, ...(m?.notes ?? [])].filter((line): line is string => Boolean(line));
-    return lines.length ? [{ treatment: t, lines }] : [];
-  });
+    for (const line of [m?.error, ...(m?.notes ?? [])]) {
+      if (line) byLine.set(line, [...(byLine.get(line) ?? []), t]);
+    }
+  }
+  const notes = [...byLine].map(([line, where]) => ({
+    line,
+    where: where.length === treatments.length ? 'Every treatment' : where.map((t) => TREATMENT_NAMES[t]).join(', '),
+  }));
   if (treatments.length === 0) return <p className="text-ink-600">No metrics: the contest has no result to compare with yet.</p>;
   return (
     <div className="space-y-4">
@@ -206,13 +215,11 @@ export function PollMetricsTable({ poll, highlight, explain }: PollMetricsTableP
         <div className="space-y-2 text-sm">
           <h3 className="font-semibold text-ink-900">Notes</h3>
           <ul className="list-disc space-y-1 pl-5 text-ink-700">
-            {notes.flatMap(({ treatment, lines }) =>
-              lines.map((line) => (
-                <li key={`${treatment}-${line}`}>
-                  <span className="font-medium">{TREATMENT_NAMES[treatment]}:</span> {line}
-                </li>
-              )),
-            )}
+            {notes.map(({ line, where }) => (
+              <li key={line}>
+                <span className="font-medium">{where}:</span> {line}
+              </li>
+            ))}
           </ul>
         </div>
       )}

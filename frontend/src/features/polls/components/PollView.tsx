@@ -10,7 +10,7 @@ import { PollMetricsTable } from './PollMetricsTable';
 export interface PollViewProps {
   pollKey: string;
   highlight?: UndecidedTreatment;
-  explain: (anchor: string) => ReactNode;
+  explain: (anchor: string, about?: string) => ReactNode;
 }
 
 /** A poll's own page: what it published, the certified result, and every metric with its inputs. */
