@@ -58,11 +58,17 @@ export function MethodsRoute() {
 
   useEffect(() => {
     if (!hash) return;
-    const target = document.getElementById(decodeURIComponent(hash.slice(1)));
-    if (target) {
+    const jump = () => {
+      const target = document.getElementById(decodeURIComponent(hash.slice(1)));
+      if (!target) return;
       target.scrollIntoView({ block: 'start' });
       target.focus({ preventScroll: true });
-    }
+    };
+    jump();
+    // On a fresh page load the router restores a saved scroll position once its data has settled,
+    // which lands after this effect; jump again once that has happened.
+    const timer = setTimeout(jump, 150);
+    return () => clearTimeout(timer);
   }, [hash]);
 
   return (
