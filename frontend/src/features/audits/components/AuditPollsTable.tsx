@@ -312,7 +312,7 @@ export function AuditPollsTable({ polls, settings, elections, auditId, serverCsv
         </div>
         <div className="flex flex-col gap-1.5">
           <label htmlFor={`${ids}-lean`} className="text-sm font-medium text-ink-800">
-            Lean
+            Side overstated
           </label>
           <select id={`${ids}-lean`} className={selectClasses} value={lean} onChange={(e) => changeFilter(() => setLean(e.target.value as LeanFilter))}>
             <option value="any">Any</option>
