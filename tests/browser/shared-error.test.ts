@@ -60,6 +60,27 @@ describe('the shared-error page in the browser', () => {
     });
   });
 
+  it('downloads a chart as SVG and PNG and its data as CSV', async () => {
+    await screenshotOnFailure('shared-error-downloads', async () => {
+      const read = async (name: string) => {
+        const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name }).click()]);
+        const stream = await download.createReadStream();
+        const chunks: Buffer[] = [];
+        for await (const chunk of stream) chunks.push(chunk as Buffer);
+        return { filename: download.suggestedFilename(), body: Buffer.concat(chunks) };
+      };
+      const svg = await read('Download Where the error came from as SVG');
+      expect(svg.filename).toBe(`audit-${auditId}-almerand-2022-general-variance-split.svg`);
+      expect(svg.body.toString('utf8')).toContain('<svg');
+      expect(svg.body.toString('utf8')).toContain('Shared (contest)');
+      const png = await read('Download Where the error came from as PNG');
+      // [published] PNG files start with the 8-byte signature 89 50 4E 47 0D 0A 1A 0A (PNG spec, ISO/IEC 15948)
+      expect([...png.body.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+      const csv = await read('Download the data of Where the error came from as CSV');
+      expect(csv.body.toString('utf8').replace(/^\uFEFF/, '').split('\r\n')[0]).toBe('part,share,variance_estimate_pts2');
+    });
+  });
+
   it('shows another election without any NaN on the page', async () => {
     await screenshotOnFailure('shared-error-2018', async () => {
       await page.getByLabel('Election', { exact: true }).selectOption('almerand-2018-general');
