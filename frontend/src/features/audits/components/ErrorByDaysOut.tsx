@@ -16,6 +16,8 @@ export interface DaysOutPoint {
 
 /** Rows shown in the table alternative; the CSV always holds them all. */
 const TABLE_LIMIT = 500;
+/** Points drawn; beyond it an evenly spaced subset is drawn so the page stays responsive. */
+const DRAW_LIMIT = 4000;
 
 export interface ErrorByDaysOutProps {
   points: readonly DaysOutPoint[];
@@ -30,6 +32,8 @@ export function ErrorByDaysOut({ points, filename, orientation, scope }: ErrorBy
   const colors = useChartColors();
   const theme = useChartTheme(colors);
   const data = useMemo(() => [...points].sort((a, b) => b.daysOut - a.daysOut), [points]);
+  const step = Math.ceil(data.length / DRAW_LIMIT);
+  const drawn = useMemo(() => (step > 1 ? data.filter((_, i) => i % step === 0) : data), [data, step]);
   const domains = useMemo(() => {
     let maxDays = 1;
     let maxError = 1;
@@ -68,7 +72,7 @@ export function ErrorByDaysOut({ points, filename, orientation, scope }: ErrorBy
       formulaAnchor={METHOD_ANCHORS.daysOut}
       filename={filename}
       csv={csv}
-      footnote={`${formatCount(data.length)} ${scope}; ${orientation} The dashed line marks no error. A poll measures opinion during its fieldwork: late movement is real change, not poll error.`}
+      footnote={`${formatCount(data.length)} ${scope}${step > 1 ? ` (1 in ${step} drawn; the CSV holds them all)` : ''}; ${orientation} The dashed line marks no error. A poll measures opinion during its fieldwork: late movement is real change, not poll error.`}
       table={
         <table className="min-w-full text-sm">
           <caption className="sr-only">Signed margin error and days out of each poll in the chart</caption>
@@ -123,7 +127,7 @@ export function ErrorByDaysOut({ points, filename, orientation, scope }: ErrorBy
           />
           <GlyphSeries
             dataKey="Polls"
-            data={data}
+            data={drawn}
             xAccessor={(p) => p.daysOut}
             yAccessor={(p) => p.marginError}
             size={6}
