@@ -27,6 +27,7 @@ import { HomeRoute, homeLoader } from './routes/home';
 import { InvitationRoute, invitationLoader } from './routes/invitation';
 import { MethodsRoute } from './routes/methods';
 import { NotFoundRoute } from './routes/not-found';
+import { PublicNoteRoute, publicNoteLoader } from './routes/public-note';
 import { ResetPasswordConfirmRoute, ResetPasswordRequestRoute } from './routes/reset-password';
 import { RouteErrorBoundary } from './routes/route-error';
 import { SignInRoute } from './routes/sign-in';
@@ -50,6 +51,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.resetPasswordRequest.path, element: <ResetPasswordRequestRoute /> },
             { path: paths.resetPasswordConfirm.path, element: <ResetPasswordConfirmRoute /> },
             { path: paths.invitation.path, loader: invitationLoader(queryClient), element: <InvitationRoute /> },
+            { path: paths.publicNote.path, loader: publicNoteLoader(queryClient), element: <PublicNoteRoute /> },
           ],
         },
         {
