@@ -114,6 +114,10 @@ export function rankingsRoutes(queryClient: QueryClient): RouteObject[] {
         const filters = scorecardFiltersFromSearch(new URL(args.request.url).searchParams);
         return prefetchLoader(queryClient, 'viewer', () => (id === null ? [] : [auditQueryOptions(id), scorecardsQueryOptions(id, filters)]))();
       },
+      // Filters live in the search string; the screen refetches them itself and keeps the last
+      // table on screen, so a filter change must not wait for the loader.
+      shouldRevalidate: ({ currentUrl, nextUrl, defaultShouldRevalidate }) =>
+        currentUrl.pathname === nextUrl.pathname ? false : defaultShouldRevalidate,
       element: <AuditRankingsRoute />,
     },
     {

@@ -97,7 +97,7 @@ export function DaysOutFigure({ data }: { data: AuditBreakdownsResponse['daysOut
           >
             <Grid columns={false} numTicks={5} />
             <Axis orientation="bottom" label="Days before the election (election day at the right)" numTicks={8} />
-            <Axis orientation="left" label={`${MEASURE_LABELS[measure]} (points)`} numTicks={5} />
+            <Axis orientation="left" label={measure === 'signed' ? 'Signed margin error (points)' : 'Absolute margin error (points)'} numTicks={5} />
             {measure === 'signed' && <HorizontalRule y={0} color={palette.axis} />}
             <GlyphSeries dataKey="unused" data={unused} xAccessor={(p) => p.daysOut} yAccessor={yOf} enableEvents={false} renderGlyph={glyphRenderer<PlottedPoint>('ring', palette.faint, 0, 5)} />
             <GlyphSeries dataKey="used" data={used} xAccessor={(p) => p.daysOut} yAccessor={yOf} enableEvents={false} renderGlyph={glyphRenderer<PlottedPoint>('circle', palette.primaryLight, 0, 6)} />

@@ -53,26 +53,21 @@ export function AuditRankings({ audit, filters, onFiltersChange }: AuditRankings
               />
             </StatGroup>
           )}
-          <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_18rem]">
-            <Card
-              title="Ranking"
-              description="Ranked by excess error, shrunk toward 0 for firms with few polls. Each bar is a 95% interval on a scale shared by its column."
-              actions={
-                <a href={scorecardsCsvHref(audit.id, filters)} download className={buttonClasses({ variant: 'secondary', size: 'sm' })}>
-                  Download ranking CSV
-                </a>
-              }
-              className="min-w-0"
-            >
-              <div aria-busy={updating || undefined} className={updating ? 'opacity-60' : undefined}>
-                <RankingTable auditId={audit.id} items={scorecards.data.items} />
-              </div>
-            </Card>
-            <aside aria-label="Cautions" className="space-y-4">
-              <RankingCaution field={field} minPolls={minPolls} />
-              {field?.shrinkage.note && <Alert tone="info">{field.shrinkage.note}</Alert>}
-            </aside>
-          </div>
+          <RankingCaution field={field} minPolls={minPolls} />
+          {field?.shrinkage.note && <Alert tone="info">{field.shrinkage.note}</Alert>}
+          <Card
+            title="Ranking"
+            description="Ranked by excess error, shrunk toward 0 for firms with few polls. Each bar is a 95% interval on a scale shared by its column."
+            actions={
+              <a href={scorecardsCsvHref(audit.id, filters)} download className={buttonClasses({ variant: 'secondary', size: 'sm' })}>
+                Download ranking CSV
+              </a>
+            }
+          >
+            <div aria-busy={updating || undefined} className={updating ? 'opacity-60' : undefined}>
+              <RankingTable auditId={audit.id} items={scorecards.data.items} />
+            </div>
+          </Card>
           <Card title="What the columns measure" headingLevel={2}>
             <dl className="grid gap-x-6 gap-y-2 text-sm md:grid-cols-2">
               {RANKING_COLUMN_NOTES.map((note) => (

@@ -6,7 +6,7 @@ export function RankingCaution({ field, minPolls }: { field: ScorecardField | nu
   const noDifferences = field !== null && field.ranked > 1 && field.shrinkage.applied && field.shrinkage.tau2 === 0;
   return (
     <Alert tone="caution" title="Read the ranking with care">
-      <ul className="list-disc space-y-1 pl-4">
+      <ul className="grid list-disc gap-x-8 gap-y-1 pl-4 lg:grid-cols-2">
         <li>Rankings from few polls are mostly luck. A firm needs at least {minPolls} polls here to be ranked, and even then its rank is uncertain.</li>
         <li>Where two firms’ intervals overlap, their order is not established.</li>
         <li>A stated margin of error covers the sampling error of one share only; the margin between two options carries about twice that, and total error runs larger still.</li>

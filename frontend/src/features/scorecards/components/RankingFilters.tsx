@@ -61,7 +61,7 @@ function MinPollsInput({ value, fallback, onCommit }: { value: number | undefine
         min={1}
         max={1000}
         step={1}
-        placeholder={`${fallback} (the audit’s setting)`}
+        placeholder={`audit: ${fallback}`}
         value={text}
         aria-invalid={invalid || undefined}
         aria-describedby={`${id}-hint`}

@@ -51,7 +51,7 @@ function PollsterCell({ item }: { item: ScorecardItem }) {
   return (
     <Link
       to={paths.pollsterAccuracy.href(item.pollsterId, { audit: auditId })}
-      className="font-medium text-accent-700 underline decoration-accent-300 underline-offset-2 hover:text-accent-900"
+      className="inline-block min-w-36 font-medium text-accent-700 underline decoration-accent-300 underline-offset-2 hover:text-accent-900"
     >
       {item.pollster}
     </Link>

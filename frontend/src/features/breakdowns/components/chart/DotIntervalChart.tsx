@@ -59,13 +59,15 @@ export function DotIntervalChart({ width, height = 300, categories, series, yLab
   );
   const offsetOf = (index: number) => (index - (series.length - 1) / 2) * SPACING;
   const activeItem = active !== null ? items[active] : undefined;
-  const crowded = categories.length > 4 && width < 720;
+  const margin = { top: 32, right: 16, bottom: 84, left: 56 };
+  // Category names wrap within their band rather than overlap.
+  const band = Math.max(48, (width - margin.left - margin.right) / Math.max(1, categories.length) - 6);
 
   return (
     <XYChart
       width={width}
       height={height}
-      margin={{ top: 32, right: 16, bottom: crowded ? 70 : 48, left: 56 }}
+      margin={margin}
       theme={chartTheme(palette)}
       xScale={{ type: 'band', domain: categories, paddingInner: 0.3, paddingOuter: 0.2 }}
       yScale={{ type: 'linear', domain, nice: true, zero: false }}
@@ -81,7 +83,8 @@ export function DotIntervalChart({ width, height = 300, categories, series, yLab
       <Axis
         orientation="bottom"
         label={xLabel}
-        tickLabelProps={crowded ? () => ({ angle: -30, textAnchor: 'end', dy: '-0.2em', fontSize: 10 }) : undefined}
+        labelOffset={40}
+        tickLabelProps={() => ({ width: band, verticalAnchor: 'start', textAnchor: 'middle', fontSize: 10, dy: '0.25em' })}
       />
       <Axis orientation="left" label={yLabel} numTicks={5} />
       {zeroRule && <HorizontalRule y={0} color={palette.axis} />}

@@ -17,6 +17,7 @@ export function neutraliseCsvCell(value: CsvValue): string | number | boolean | 
 /** Rows as CSV text with a header line, CRLF line ends and every cell neutralised. */
 export function toCsv(rows: readonly CsvRow[], columns?: readonly string[]): string {
   const fields = columns ? [...columns] : rows[0] ? Object.keys(rows[0]) : [];
+  if (rows.length === 0) return Papa.unparse([fields.map((f) => neutraliseCsvCell(f))], { newline: '\r\n' });
   const data = rows.map((row) => fields.map((field) => neutraliseCsvCell(row[field])));
   return Papa.unparse({ fields, data }, { newline: '\r\n' });
 }
