@@ -10,4 +10,13 @@ log "lint"; npx eslint . --max-warnings=0
 log "typecheck"; npm run typecheck --silent
 build_frontend
 log "tests"
-npx vitest run "$@"
+mkdir -p "$DATA"
+status=0
+npx vitest run --reporter=default --reporter=json --outputFile="$DATA/vitest-report.json" "$@" || status=$?
+# A plain closing line that any CI reader understands.
+node -e '
+  const r = JSON.parse(require("fs").readFileSync(process.argv[1], "utf8"));
+  const skipped = (r.numPendingTests || 0) + (r.numTodoTests || 0);
+  console.log(`Tests: ${r.numPassedTests} passed, ${r.numFailedTests} failed` + (skipped ? `, ${skipped} skipped` : ""));
+' "$DATA/vitest-report.json" || true
+exit "$status"
