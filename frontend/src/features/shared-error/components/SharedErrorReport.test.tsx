@@ -1,4 +1,4 @@
-import { cleanup, screen, within } from '@testing-library/react';
+import { cleanup, fireEvent, screen, within } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { jsonResponse, renderWithClient, stubApi } from '../../../test/render';
 import { buildAuditPoll, buildEmptyAnalysis, buildSharedMissAnalysis } from '../testing';
@@ -38,6 +38,24 @@ describe('SharedErrorReport', () => {
     // the chart's data table lists both polls of the north contest
     expect(await screen.findByRole('table', { name: 'Each poll’s error and its contest’s mean' })).toBeTruthy();
     expect(pageText()).not.toMatch(/NaN|undefined/);
+  });
+
+  it('prints r in each cell of the firm-by-firm grid, and the count of common contests where r is missing', async () => {
+    serve(buildSharedMissAnalysis());
+    renderWithClient(<SharedErrorReport auditId={7} electionKey={ELECTION} blocs={{ blocA: 'OAK', blocB: 'LAN' }} />);
+
+    const grid = await screen.findByRole('img', { name: /Correlation of firms’ errors over common contests \(raw\)/ });
+    const cells = () => [...grid.querySelectorAll('text')].map((t) => t.textContent);
+    // each pair appears twice (above and below the diagonal)
+    expect(cells().filter((t) => t === '0.71')).toHaveLength(2);
+    expect(cells().filter((t) => t === 'n=2')).toHaveLength(2);
+    expect([...grid.querySelectorAll('title')].map((t) => t.textContent)).toContain(
+      'Alder Polling × Birch Surveys: not computed (only 2 common contests; at least 5 are needed)',
+    );
+
+    fireEvent.click(screen.getByLabelText('After removing each contest’s bias (estimated from the other firms)'));
+    const adjusted = await screen.findByRole('img', { name: /after removing contest bias/ });
+    expect([...adjusted.querySelectorAll('text')].filter((t) => t.textContent === '\u22120.35')).toHaveLength(2);
   });
 
   it('shows "not enough data" with reasons, and never NaN, when nothing could be computed', async () => {

@@ -14,6 +14,7 @@ const STYLE_PROPERTIES = [
   'text-anchor',
   'dominant-baseline',
   'visibility',
+  'overflow',
 ] as const;
 
 /**
@@ -31,7 +32,8 @@ export function serializeSvg(svg: SVGSVGElement): string {
     const declarations = STYLE_PROPERTIES.map((p) => [p, computed.getPropertyValue(p)] as const)
       .filter(([, v]) => v !== '')
       .map(([p, v]) => `${p}:${v}`);
-    if (declarations.length > 0) target.setAttribute('style', declarations.join(';'));
+    const own = target.getAttribute('style');
+    if (declarations.length > 0) target.setAttribute('style', [own, ...declarations].filter(Boolean).join(';'));
     target.removeAttribute('class');
   });
   const { width, height } = svg.getBoundingClientRect();
