@@ -15,6 +15,10 @@ export function createNoteMarkdown(renderLiveBlock: (body: string, env: unknown)
   md.renderer.rules.math_inline = (tokens, idx) => renderTex(tokens[idx]!.content, false);
   md.renderer.rules.math_display_inline = (tokens, idx) => renderTex(tokens[idx]!.content, true);
   md.renderer.rules.math_block = (tokens, idx) => `<div class="vc-math-display">${renderTex(tokens[idx]!.content, true)}</div>\n`;
+  // The page around a note owns its one h1 (the title): Markdown headings move one level down.
+  md.core.ruler.push('vc_heading_shift', (state) => {
+    for (const t of state.tokens) if (t.type === 'heading_open' || t.type === 'heading_close') t.tag = `h${Math.min(6, Number(t.tag.slice(1)) + 1)}`;
+  });
   const defaultFence = md.renderer.rules.fence!;
   md.renderer.rules.fence = (tokens, idx, options, env, self) => {
     const token = tokens[idx]!;

@@ -103,7 +103,7 @@ export function NoteEditRoute() {
         <>
           <title>{`Edit ${note.data.title} · Veracast`}</title>
           <PageHeader title={`Edit: ${note.data.title}`} description="Each save keeps a version. Blocks show the audits’ stored numbers." />
-          <NoteEditor key={note.data.currentVersion ?? 0} note={note.data} onSubmitted={() => navigate(paths.note.href(id))} />
+          <NoteEditor key={note.data.id} note={note.data} onSubmitted={() => navigate(paths.note.href(id))} />
         </>
       )}
     </RequireRole>
