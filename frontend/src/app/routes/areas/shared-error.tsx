@@ -44,7 +44,7 @@ function AuditNotice({ audit }: { audit: AuditDto }) {
   );
 }
 
-function useAuditOrMessage(auditId: number) {
+function useAuditOrMessage(auditId: number | null) {
   const audit = useAudit(auditId);
   if (audit.isPending) return { audit: null, message: <LoadingState label="Loading the audit…" /> };
   if (audit.isError) {
@@ -78,7 +78,7 @@ export function SharedErrorChooserRoute() {
 export function AuditSharedErrorRoute() {
   const parsed = parseAnalysisParams(useParams());
   const navigate = useNavigate();
-  const { audit, message } = useAuditOrMessage(parsed?.auditId ?? 0);
+  const { audit, message } = useAuditOrMessage(parsed?.auditId ?? null);
   if (!parsed) return <NotFoundRoute />;
   if (!audit) return message;
 
@@ -131,7 +131,7 @@ export function AuditSharedErrorRoute() {
 
 export function AuditHistoryRoute() {
   const parsed = auditIdSchema.safeParse(useParams().id);
-  const { audit, message } = useAuditOrMessage(parsed.success ? parsed.data : 0);
+  const { audit, message } = useAuditOrMessage(parsed.success ? parsed.data : null);
   if (!parsed.success) return <NotFoundRoute />;
   if (!audit) return message;
   const elections = [...audit.elections].sort((a, b) => (a.date < b.date ? -1 : 1));

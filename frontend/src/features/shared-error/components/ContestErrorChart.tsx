@@ -187,7 +187,7 @@ export function ContestErrorChart({ analysis, polls, blocs, filename }: ContestE
       meaning={
         sameSide !== null && means.length > 0 ? (
           <p>
-            In {sameSide} of {means.length} contests the polls’ mean error fell on the same side of zero as the election mean. Dots
+            In {sameSide} of {means.length} {means.length === 1 ? 'contest' : 'contests'} the polls’ mean error fell on the same side of zero as the election mean. Dots
             spread around a bar are what firms did differently; a bar away from zero is what all polls of that contest shared, and
             averaging them cannot remove it.
           </p>

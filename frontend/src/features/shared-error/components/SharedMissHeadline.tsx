@@ -80,7 +80,7 @@ export function SharedMissHeadline({ analysis, blocs }: { analysis: SharedErrorA
           value={<ValueOr text={fmtNumber(analysis.icc, 2)} reason={reasonFor(analysis.warnings, 'icc')} />}
           hint={isNum(analysis.iccF) && analysis.iccDf ? `F = ${fmtNumber(analysis.iccF, 2)} on ${analysis.iccDf[0]} and ${analysis.iccDf[1]} df, ${fmtPEquals(analysis.iccP) ?? ''}` : 'how alike polls of one contest were'}
         />
-        <Stat label="Polls analysed" value={analysis.polls} hint={`${analysis.contests} contests, ${analysis.firms} firms`} />
+        <Stat label="Polls analysed" value={analysis.polls} hint={`${analysis.contests} ${analysis.contests === 1 ? 'contest' : 'contests'}, ${analysis.firms} ${analysis.firms === 1 ? 'firm' : 'firms'}`} />
       </StatGroup>
       <p className="mt-3 max-w-3xl text-sm text-ink-700">
         The mean signed error is the average of every poll’s margin error, oriented by the election’s blocs ({blocs.blocA ?? 'bloc A'} − {blocs.blocB ?? 'bloc B'}). Polls of one
