@@ -1,4 +1,5 @@
 import { toCsv, type CsvRow } from './csv';
+import { chartPalette } from './palette';
 
 /** A file name safe on every system: lower-case letters, digits and dashes. */
 export function fileSlug(text: string): string {
@@ -33,28 +34,43 @@ export function downloadCsv(rows: readonly CsvRow[], fileName: string, columns?:
 
 const SVG_NS = 'http://www.w3.org/2000/svg';
 
+/** Height of the title band added above a saved chart. */
+const TITLE_BAND = 28;
+
 /**
- * A standalone copy of a chart's SVG: explicit size, a white background, the title as `<title>`,
- * a font family, and colours already resolved to plain values by the chart palette.
+ * A standalone copy of a chart's SVG: explicit size, a white background, the title written above
+ * the chart and kept as `<title>`, a font family, and colours already resolved to plain values by
+ * the chart palette.
  */
 export function serializeChartSvg(svg: SVGSVGElement, title: string): { text: string; width: number; height: number } {
   const width = Number(svg.getAttribute('width')) || svg.getBoundingClientRect().width || 640;
-  const height = Number(svg.getAttribute('height')) || svg.getBoundingClientRect().height || 320;
+  const chartHeight = Number(svg.getAttribute('height')) || svg.getBoundingClientRect().height || 320;
+  const height = chartHeight + TITLE_BAND;
+  const palette = chartPalette();
   const copy = svg.cloneNode(true) as SVGSVGElement;
+  const chart = document.createElementNS(SVG_NS, 'g');
+  chart.setAttribute('transform', `translate(0, ${TITLE_BAND})`);
+  while (copy.firstChild) chart.append(copy.firstChild);
   copy.setAttribute('xmlns', SVG_NS);
   copy.setAttribute('width', String(width));
   copy.setAttribute('height', String(height));
   copy.setAttribute('viewBox', `0 0 ${width} ${height}`);
   copy.setAttribute('font-family', 'Work Sans, Helvetica, Arial, sans-serif');
   copy.removeAttribute('class');
+  const titleNode = document.createElementNS(SVG_NS, 'title');
+  titleNode.textContent = title;
   const background = document.createElementNS(SVG_NS, 'rect');
   background.setAttribute('width', '100%');
   background.setAttribute('height', '100%');
-  background.setAttribute('fill', '#ffffff');
-  const titleNode = document.createElementNS(SVG_NS, 'title');
-  titleNode.textContent = title;
-  copy.insertBefore(background, copy.firstChild);
-  copy.insertBefore(titleNode, copy.firstChild);
+  background.setAttribute('fill', palette.white);
+  const heading = document.createElementNS(SVG_NS, 'text');
+  heading.setAttribute('x', '12');
+  heading.setAttribute('y', '19');
+  heading.setAttribute('font-size', '14');
+  heading.setAttribute('font-weight', '600');
+  heading.setAttribute('fill', palette.text);
+  heading.textContent = title;
+  copy.append(titleNode, background, heading, chart);
   const text = `<?xml version="1.0" encoding="UTF-8"?>\n${new XMLSerializer().serializeToString(copy)}`;
   return { text, width, height };
 }
@@ -80,7 +96,7 @@ export async function downloadPng(svg: SVGSVGElement, title: string, fileName: s
   canvas.height = Math.round(height * scale);
   const context = canvas.getContext('2d');
   if (!context) throw new Error('This browser cannot draw images.');
-  context.fillStyle = '#ffffff';
+  context.fillStyle = chartPalette().white;
   context.fillRect(0, 0, canvas.width, canvas.height);
   context.drawImage(image, 0, 0, canvas.width, canvas.height);
   const blob = await new Promise<Blob | null>((resolve) => canvas.toBlob(resolve, 'image/png'));

@@ -1,23 +1,24 @@
 import { DataContext, buildChartTheme, type GlyphProps } from '@visx/xychart';
 import { useContext } from 'react';
-import type { ChartPalette } from './palette';
+import { chartPalette, type ChartPalette } from './palette';
 
 /** Shapes of the series: each series differs by shape as well as by colour. */
 export type MarkShape = 'circle' | 'ring' | 'diamond' | 'square' | 'triangle';
 
 export function Shape({ shape, x, y, size = 7, color }: { shape: MarkShape; x: number; y: number; size?: number; color: string }) {
   const r = size / 2;
+  const white = chartPalette().white;
   switch (shape) {
     case 'ring':
-      return <circle cx={x} cy={y} r={r} fill="#ffffff" stroke={color} strokeWidth={1.5} />;
+      return <circle cx={x} cy={y} r={r} fill={white} stroke={color} strokeWidth={1.5} />;
     case 'diamond':
-      return <path d={`M${x},${y - r * 1.3}L${x + r * 1.3},${y}L${x},${y + r * 1.3}L${x - r * 1.3},${y}Z`} fill={color} stroke="#ffffff" strokeWidth={1} />;
+      return <path d={`M${x},${y - r * 1.3}L${x + r * 1.3},${y}L${x},${y + r * 1.3}L${x - r * 1.3},${y}Z`} fill={color} stroke={white} strokeWidth={1} />;
     case 'square':
-      return <rect x={x - r} y={y - r} width={size} height={size} fill={color} stroke="#ffffff" strokeWidth={1} />;
+      return <rect x={x - r} y={y - r} width={size} height={size} fill={color} stroke={white} strokeWidth={1} />;
     case 'triangle':
-      return <path d={`M${x},${y - r * 1.3}L${x + r * 1.2},${y + r}L${x - r * 1.2},${y + r}Z`} fill={color} stroke="#ffffff" strokeWidth={1} />;
+      return <path d={`M${x},${y - r * 1.3}L${x + r * 1.2},${y + r}L${x - r * 1.2},${y + r}Z`} fill={color} stroke={white} strokeWidth={1} />;
     default:
-      return <circle cx={x} cy={y} r={r} fill={color} stroke="#ffffff" strokeWidth={1} />;
+      return <circle cx={x} cy={y} r={r} fill={color} stroke={white} strokeWidth={1} />;
   }
 }
 
@@ -30,7 +31,7 @@ export function glyphRenderer<D extends object>(shape: MarkShape, color: string,
 
 export function chartTheme(palette: ChartPalette) {
   return buildChartTheme({
-    backgroundColor: '#ffffff',
+    backgroundColor: palette.white,
     colors: [palette.primary, palette.secondary, palette.faint],
     gridColor: palette.grid,
     gridColorDark: palette.axis,

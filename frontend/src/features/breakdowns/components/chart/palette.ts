@@ -4,6 +4,7 @@
  * value by reading the computed colour of a probe element that carries the token's class.
  */
 const TOKENS = {
+  white: 'text-white',
   text: 'text-ink-900',
   muted: 'text-ink-600',
   axis: 'text-ink-500',
