@@ -1,12 +1,15 @@
 import type { AuditDto } from '@veracast/shared-types';
+import { lazy, Suspense } from 'react';
 import { Alert, Card, LoadingState } from '../../../components/ui';
 import { describeError } from '../../../lib/api-client';
 import { auditPollsCsvUrl, useAuditPolls } from '../api/list-audit-polls';
-import { AuditCharts } from './AuditCharts';
 import { AuditHeadline } from './AuditHeadline';
 import { AuditPollsTable } from './AuditPollsTable';
 import { AuditSettingsPanel } from './AuditSettingsPanel';
 import { OutOfDateNotice } from './OutOfDateNotice';
+
+// The charting library is large: it loads only when an audit's charts are shown.
+const AuditCharts = lazy(() => import('./AuditCharts').then((module) => ({ default: module.AuditCharts })));
 
 export interface AuditViewProps {
   audit: AuditDto;
@@ -40,7 +43,9 @@ export function AuditView({ audit, canRerun }: AuditViewProps) {
             <h2 id="audit-charts" className="text-lg font-semibold text-ink-900">
               Charts
             </h2>
-            <AuditCharts auditId={audit.id} polls={polls.data.items} settings={audit.settings} elections={audit.elections} />
+            <Suspense fallback={<LoadingState label="Loading the charts…" />}>
+              <AuditCharts auditId={audit.id} polls={polls.data.items} settings={audit.settings} elections={audit.elections} />
+            </Suspense>
           </section>
           <Card
             title="Every poll"
