@@ -23,6 +23,7 @@ export default defineConfig({
             { name: 'react', test: /node_modules[\\/](react|react-dom|react-router|react-router-dom|scheduler)[\\/]/ },
             { name: 'tanstack', test: /node_modules[\\/]@tanstack[\\/]/ },
             { name: 'forms', test: /node_modules[\\/](zod|react-hook-form|@hookform)[\\/]/ },
+            { name: 'charts', test: /node_modules[\\/](@visx|d3-[a-z-]+|@react-spring|internmap)[\\/]/ },
           ],
         },
       },

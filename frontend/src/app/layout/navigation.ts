@@ -28,6 +28,7 @@ export const NAVIGATION: NavGroup[] = [
       { label: 'Imports', href: paths.imports.href(), minimum: 'analyst' },
       { label: 'Notes', href: paths.notes.href() },
       { label: 'Data quality', href: paths.dataQuality.href() },
+      { label: 'Methods', href: paths.methods.href() },
     ],
   },
   {
