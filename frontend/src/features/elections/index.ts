@@ -1,0 +1,12 @@
+export { electionKeys } from './api/keys';
+export { electionsQueryOptions, listElections, useElections } from './api/list-elections';
+export { electionKeyParamSchema, electionQueryOptions, getElection, useElection, type ElectionDetail } from './api/get-election';
+export { createElection, createElectionInputSchema, useCreateElection } from './api/create-election';
+export { updateElection, updateElectionInputSchema, useUpdateElection, type UpdateElectionInput } from './api/update-election';
+export { setOrientation, setOrientationInputSchema, useSetOrientation, type SetOrientationInput } from './api/set-orientation';
+export { ElectionsTable } from './components/ElectionsTable';
+export { ElectionForm } from './components/ElectionForm';
+export { ElectionContestsTable, certificationLabel } from './components/ElectionContestsTable';
+export { ElectionFacts } from './components/ElectionFacts';
+export { OrientationForm } from './components/OrientationForm';
+export { FictionalDataNotice, FictionalMarker, FICTIONAL_LABEL } from './components/FictionalDataNotice';

@@ -1,0 +1,10 @@
+export { pollsterKeys } from './api/keys';
+export { listPollsters, pollstersQueryOptions, usePollsters } from './api/list-pollsters';
+export { getPollster, pollsterIdSchema, pollsterQueryOptions, usePollster, type PollsterDetail } from './api/get-pollster';
+export { createPollster, createPollsterInputSchema, useCreatePollster, type CreatePollsterInput } from './api/create-pollster';
+export { updatePollster, updatePollsterInputSchema, useUpdatePollster, type UpdatePollsterInput } from './api/update-pollster';
+export { PollstersTable } from './components/PollstersTable';
+export { PollsterForm, aliasesOf } from './components/PollsterForm';
+export { PollsterDisclosure } from './components/PollsterDisclosure';
+export { PollsterPollsTable } from './components/PollsterPollsTable';
+export { PollsterFacts } from './components/PollsterFacts';
