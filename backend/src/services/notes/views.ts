@@ -104,7 +104,7 @@ function scorecardView(_spec: BlockSpec, a: AuditSnapshot, ctx: ViewContext): st
   ]);
   const chart = intervalChartSvg(
     items.map((s) => ({ label: s.pollster, value: s.excessErrorShrunk, lo: (s.excessErrorShrunkInterval ?? s.excessErrorInterval)?.[0] ?? null, hi: (s.excessErrorShrunkInterval ?? s.excessErrorInterval)?.[1] ?? null })),
-    { label: `Contest-adjusted excess error by pollster, audit ${a.id}`, axisLabel: 'Excess absolute margin error, points (below 0: more accurate than rivals in the same contests)' },
+    { label: `Contest-adjusted excess error by pollster, audit ${a.id}`, axisLabel: 'Excess absolute margin error, points (below 0: more accurate than rivals)' },
   );
   const explain = `<p class="vc-note-line">The chart shows each firm’s contest-adjusted excess error, shrunk toward zero for firms with few polls, with its 95% bootstrap interval; the table below carries the same figures. Firms with fewer than ${a.settings.minPolls} polls are not ranked. Ranks come with their intervals: overlapping intervals mean the order is not settled.</p>`;
   return figure('scorecard', `Pollster scorecards — audit #${a.id}`, a,
