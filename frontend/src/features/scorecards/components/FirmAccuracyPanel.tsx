@@ -134,7 +134,7 @@ function DisclosureCard({ profile, auditId }: { profile: PollsterProfile; auditI
     >
       <StatGroup columns={2}>
         <Stat label="All its polls" value={formatPercent(profile.disclosure)} hint={`average over ${profile.pollCount} polls in the archive`} />
-        {auditId !== undefined && <AuditDisclosureStat auditId={auditId} pollsterId={profile.id} />}
+        {auditId !== undefined && <AuditDisclosureStat key={auditId} auditId={auditId} pollsterId={profile.id} />}
       </StatGroup>
       {known.length > 0 && (
         <table className="mt-4 w-full max-w-xl text-sm">
