@@ -126,7 +126,7 @@ export function HistoryChart({ history, elections, filename }: { history: AuditH
             accessibilityLabel="Mean signed error of each election with its 95% interval"
           >
             <Grid rows columns={false} numTicks={5} />
-            <HorizontalRule value={0} label="0 = no shared miss" strong />
+            <HorizontalRule value={0} strong />
             <Whiskers rows={rows} />
             <GlyphSeries
               dataKey="Mean signed error"
@@ -164,6 +164,7 @@ export function HistoryChart({ history, elections, filename }: { history: AuditH
           >
             95% interval, clustered by contest
           </LegendItem>
+          <LegendItem shape={<line x1={1} x2={17} y1={7} y2={7} stroke={CHART_COLOURS.ink900} strokeWidth={1.5} />}>0: no shared miss</LegendItem>
         </Legend>
       </>
     );
