@@ -30,7 +30,7 @@ const columns = column.columns([
       ) : (
         <ul className="space-y-0.5">
           {info.row.original.changes.map((c) => (
-            <li key={c.field}>
+            <li key={c.field} className="relative">
               <span className="font-medium">{c.field}:</span> <span className="text-ink-600">{c.before}</span>
               <span aria-hidden="true"> → </span>
               <span className="sr-only"> changed to </span>

@@ -79,12 +79,16 @@ export function ContestForm({ electionKey, onCreated }: ContestFormProps) {
       </div>
       <fieldset className="space-y-3">
         <legend className="text-sm font-semibold text-ink-900">Options</legend>
+        <p className="text-sm text-ink-600">
+          At least two. A bloc is a label shared across contests (a party, or YES/NO) that orients margins; leave it empty for
+          independents.
+        </p>
         {optionsError && <p className="text-sm font-medium text-danger-700">Options: {optionsError}</p>}
         {options.fields.map((field, index) => (
           <div key={field.id} className="grid items-end gap-3 sm:grid-cols-[1fr_2fr_1fr_auto]">
             <Input label={`Option ${index + 1} key`} autoComplete="off" error={errors.options?.[index]?.key?.message} {...form.register(`options.${index}.key`)} />
             <Input label={`Option ${index + 1} name`} autoComplete="off" error={errors.options?.[index]?.name?.message} {...form.register(`options.${index}.name`)} />
-            <Input label={`Option ${index + 1} bloc`} autoComplete="off" hint="Empty for none." error={errors.options?.[index]?.bloc?.message} {...form.register(`options.${index}.bloc`)} />
+            <Input label={`Option ${index + 1} bloc`} autoComplete="off" error={errors.options?.[index]?.bloc?.message} {...form.register(`options.${index}.bloc`)} />
             <Button variant="ghost" size="sm" onClick={() => options.remove(index)} disabled={options.fields.length <= 2} aria-label={`Remove option ${index + 1}`}>
               Remove
             </Button>

@@ -35,7 +35,8 @@ export function ContestPollsTable({ contest, polls, onEdit }: ContestPollsTableP
       column.accessor((row) => row.shares[option.key] ?? Number.NEGATIVE_INFINITY, {
         id: `share:${option.key}`,
         header: () => (
-          <span title={option.label}>
+          // `relative` keeps the visually hidden text inside the scrolling table (it is absolutely placed).
+          <span title={option.label} className="relative">
             {option.key}
             <span className="sr-only"> ({option.label}) share</span>
           </span>
@@ -48,7 +49,7 @@ export function ContestPollsTable({ contest, polls, onEdit }: ContestPollsTableP
       column.accessor('key', {
         header: 'Poll',
         cell: (info) => (
-          <Link to={paths.poll.href(info.getValue())} className="font-mono text-xs text-accent-700 underline">
+          <Link to={paths.poll.href(info.getValue())} className="font-mono text-xs whitespace-nowrap text-accent-700 underline">
             {info.getValue()}
           </Link>
         ),
@@ -63,9 +64,13 @@ export function ContestPollsTable({ contest, polls, onEdit }: ContestPollsTableP
       }),
       column.accessor('fieldworkEnd', {
         header: 'Fieldwork',
-        cell: (info) => `${formatDate(info.row.original.fieldworkStart)} – ${formatDate(info.getValue())}`,
+        cell: (info) => (
+          <span className="whitespace-nowrap">
+            {formatDate(info.row.original.fieldworkStart)} – {formatDate(info.getValue())}
+          </span>
+        ),
       }),
-      column.accessor('publishedOn', { header: 'Published', cell: (info) => formatDate(info.getValue()) }),
+      column.accessor('publishedOn', { header: 'Published', cell: (info) => <span className="whitespace-nowrap">{formatDate(info.getValue())}</span> }),
       column.accessor('sampleSize', { header: 'Sample', sortFn: 'basic', cell: (info) => formatInteger(info.getValue()) }),
       column.accessor('population', { header: 'Population', cell: (info) => POPULATION_LABELS[info.row.original.population] }),
       column.accessor('mode', { header: 'Mode' }),
@@ -99,7 +104,11 @@ export function ContestPollsTable({ contest, polls, onEdit }: ContestPollsTableP
       list.push(
         column.display({
           id: 'actions',
-          header: () => <span className="sr-only">Actions</span>,
+          header: () => (
+            <span className="relative">
+              <span className="sr-only">Actions</span>
+            </span>
+          ),
           cell: (info) => (
             <Button size="sm" variant="secondary" onClick={() => onEdit(info.row.original)} aria-label={`Edit poll ${info.row.original.key}`}>
               Edit

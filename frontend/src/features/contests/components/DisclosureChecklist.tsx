@@ -21,7 +21,7 @@ const columns: DataTableColumn<PollDto>[] = [
   column.accessor('key', {
     header: 'Poll',
     cell: (info) => (
-      <Link to={paths.poll.href(info.getValue())} className="font-mono text-xs text-accent-700 underline">
+      <Link to={paths.poll.href(info.getValue())} className="font-mono text-xs whitespace-nowrap text-accent-700 underline">
         {info.getValue()}
       </Link>
     ),

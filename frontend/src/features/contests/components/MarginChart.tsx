@@ -36,7 +36,7 @@ const tableColumns = column.columns([
   column.accessor('pollKey', {
     header: 'Poll',
     cell: (info) => (
-      <Link to={paths.poll.href(info.getValue())} className="font-mono text-xs text-accent-700 underline">
+      <Link to={paths.poll.href(info.getValue())} className="font-mono text-xs whitespace-nowrap text-accent-700 underline">
         {info.getValue()}
       </Link>
     ),
@@ -148,6 +148,8 @@ export function MarginChart({ contestKey, points, certified, electionDate, nameA
       {saveError && <Alert tone="danger">{saveError}</Alert>}
       {view === 'chart' ? (
         <div ref={frame} className="rounded-lg border border-ink-200 bg-white p-2" aria-describedby={descriptionId}>
+          {/* XYChart measures its parent (ParentSize), so the parent needs a height. */}
+          <div className="h-[340px]">
           <XYChart
             height={340}
             margin={{ top: 16, right: 24, bottom: 48, left: 64 }}
@@ -202,6 +204,7 @@ export function MarginChart({ contestKey, points, certified, electionDate, nameA
               }}
             />
           </XYChart>
+          </div>
           <p className="px-2 pt-1 text-xs text-ink-600">
             <span aria-hidden="true">● </span>poll margin · <span aria-hidden="true">— </span>certified margin
           </p>

@@ -18,7 +18,11 @@ export function CsvPreview({ parsed, fileName }: { parsed: ParsedFile; fileName:
     () => [
       column.accessor('line', { header: 'Row', sortFn: 'basic' }),
       ...parsed.headers.map((header, index) =>
-        column.accessor((row) => row.cells[index] ?? '', { id: `c${index}`, header: header || `(column ${index + 1})` }),
+        column.accessor((row) => row.cells[index] ?? '', {
+          id: `c${index}`,
+          header: header || `(column ${index + 1})`,
+          cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span>,
+        }),
       ),
     ],
     [parsed],

@@ -15,7 +15,7 @@ export const IMPORT_STATUS_LABELS: Record<ImportRecord['status'], string> = {
 const column = createDataTableColumnHelper<ImportRecord>();
 const columns = column.columns([
   column.accessor('id', {
-    header: 'Import',
+    header: 'Record',
     sortFn: 'basic',
     cell: (info) => (
       <Link to={paths.importRecord.href(info.getValue())} className="font-medium text-accent-700 underline">
@@ -23,10 +23,14 @@ const columns = column.columns([
       </Link>
     ),
   }),
-  column.accessor('createdAt', { header: 'When', sortFn: 'datetime', cell: (info) => formatDateTime(info.getValue()) }),
+  column.accessor('createdAt', {
+    header: 'When',
+    sortFn: 'datetime',
+    cell: (info) => <span className="whitespace-nowrap">{formatDateTime(info.getValue())}</span>,
+  }),
   column.accessor((row) => row.user ?? 'Unknown', { id: 'user', header: 'Who' }),
   column.accessor((row) => (row.kind === 'polls' ? 'Polls' : 'Results'), { id: 'kind', header: 'Kind' }),
-  column.accessor('fileName', { header: 'File', cell: (info) => <span className="break-all">{info.getValue()}</span> }),
+  column.accessor('fileName', { header: 'File', cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span> }),
   column.accessor((row) => IMPORT_STATUS_LABELS[row.status] + (row.validOnly ? ', valid rows only' : ''), { id: 'status', header: 'Outcome' }),
   column.accessor('rows', { header: 'Rows', sortFn: 'basic' }),
   column.accessor('created', { header: 'Created', sortFn: 'basic' }),

@@ -10,7 +10,7 @@ const columns = column.columns([
   column.accessor('key', {
     header: 'Poll',
     cell: (info) => (
-      <Link to={paths.poll.href(info.getValue())} className="font-mono text-xs text-accent-700 underline">
+      <Link to={paths.poll.href(info.getValue())} className="font-mono text-xs whitespace-nowrap text-accent-700 underline">
         {info.getValue()}
       </Link>
     ),
@@ -25,7 +25,11 @@ const columns = column.columns([
   }),
   column.accessor('fieldworkEnd', {
     header: 'Fieldwork',
-    cell: (info) => `${formatDate(info.row.original.fieldworkStart)} – ${formatDate(info.getValue())}`,
+    cell: (info) => (
+      <span className="whitespace-nowrap">
+        {formatDate(info.row.original.fieldworkStart)} – {formatDate(info.getValue())}
+      </span>
+    ),
   }),
   column.accessor('sampleSize', { header: 'Sample', sortFn: 'basic', cell: (info) => formatInteger(info.row.original.sampleSize) }),
   column.accessor('population', { header: 'Population', cell: (info) => POPULATION_LABELS[info.row.original.population] }),
