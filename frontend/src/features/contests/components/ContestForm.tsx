@@ -47,7 +47,7 @@ export function ContestForm({ electionKey, onCreated }: ContestFormProps) {
   });
   const options = useFieldArray({ control: form.control, name: 'options' });
   const { errors } = form.formState;
-  const optionsError = (errors.options as { message?: string } | undefined)?.message ?? errors.options?.root?.message;
+  const optionsError = errors.options?.root?.message ?? (errors.options as { message?: string } | undefined)?.message;
 
   return (
     <form

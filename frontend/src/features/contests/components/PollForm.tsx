@@ -140,7 +140,8 @@ export function PollForm({ contest, pollsters, poll, onDone }: PollFormProps) {
   const form = useForm<PollFormValues>({ resolver, defaultValues: defaults(contest, poll) });
   const rows = useFieldArray({ control: form.control, name: 'shares', keyName: 'fieldId' });
   const { errors } = form.formState;
-  const sharesError = (errors.shares as { message?: string } | undefined)?.message;
+  // The resolver puts an error about the whole list (the sum) on the field array's root.
+  const sharesError = errors.shares?.root?.message ?? (errors.shares as { message?: string } | undefined)?.message;
 
   return (
     <form

@@ -138,7 +138,9 @@ export function ResultForm({ contest, canCertify }: ResultFormProps) {
       </div>
       <fieldset className="space-y-3">
         <legend className="text-sm font-semibold text-ink-900">Votes per option</legend>
-        {errors.votes?.message && <p className="text-sm font-medium text-danger-700">{errors.votes.message}</p>}
+        {(errors.votes?.root?.message ?? errors.votes?.message) && (
+          <p className="text-sm font-medium text-danger-700">{errors.votes?.root?.message ?? errors.votes?.message}</p>
+        )}
         <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
           {rows.fields.map((row, index) => (
             <Input

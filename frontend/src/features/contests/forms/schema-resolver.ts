@@ -27,7 +27,10 @@ export function schemaResolver<Form extends FieldValues, Schema extends z.ZodTyp
 
 /** zod's own wording for a value of the wrong type is written for programmers; say it plainly. */
 function messageOf(issue: z.core.$ZodIssue): string {
-  if (issue.code === 'invalid_type') return issue.expected === 'number' ? 'enter a number' : 'is required';
+  if (issue.code !== 'invalid_type') return issue.message;
+  if (issue.expected === 'number') return 'enter a number';
+  if (issue.expected === 'string' || issue.expected === 'boolean') return 'is required';
+  // e.g. `int`: the schema's own message ("votes must be whole numbers") says it best.
   return issue.message;
 }
 
