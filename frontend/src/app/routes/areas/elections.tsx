@@ -41,6 +41,7 @@ import {
 } from '../../../features/elections';
 import { pollstersQueryOptions, usePollsters } from '../../../features/pollsters';
 import { describeError, isApiError } from '../../../lib/api-client';
+import { env } from '../../../lib/env';
 import { paths } from '../../../lib/paths';
 import { formatDate } from '../../../utils/format';
 import { prefetchLoader } from '../../loaders';
@@ -78,7 +79,15 @@ export function ElectionsRoute() {
   return (
     <div className="space-y-6">
       <title>Elections · Veracast</title>
-      <PageHeader title="Elections" description="Each election with its contests, how many results are certified and how many polls were published." />
+      <PageHeader
+        title="Elections"
+        description="Each election with its contests, how many results are certified and how many polls were published."
+        actions={
+          <a href={`${env.apiBase}/elections?format=csv`} download className="text-sm font-medium text-accent-700 underline">
+            Download as CSV
+          </a>
+        }
+      />
       {anyFictional && <FictionalDataNotice scope="the elections marked Fictional, their results and their polls" />}
       <ElectionsTable />
       {canEdit && (
@@ -141,7 +150,7 @@ function ElectionPage({ electionKey }: { electionKey: string }) {
         description="Margins are A minus B. A and B are the election's two orientation blocs where both stand in a contest, otherwise the contest's top two."
       >
         {canReview ? (
-          <OrientationForm key={`${e.blocA}-${e.blocB}`} election={e} blocs={blocs} />
+          <OrientationForm election={e} blocs={blocs} />
         ) : (
           <p className="text-sm text-ink-700">
             {e.blocA && e.blocB ? `A is ${e.blocA}, B is ${e.blocB}` : 'No orientation yet'}
@@ -152,7 +161,7 @@ function ElectionPage({ electionKey }: { electionKey: string }) {
       {canEdit && (
         <>
           <Card title="Edit the election">
-            <ElectionForm key={`${e.name}-${e.date}-${e.blackoutStart}-${e.blackoutEnd}`} election={e} />
+            <ElectionForm election={e} />
           </Card>
           <Card title="Add a contest" description="A race or question with its options; enter its result on the contest's page or import it.">
             <ContestForm electionKey={e.key} />

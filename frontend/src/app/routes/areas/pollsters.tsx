@@ -16,6 +16,7 @@ import {
   usePollster,
 } from '../../../features/pollsters';
 import { describeError, isApiError } from '../../../lib/api-client';
+import { env } from '../../../lib/env';
 import { paths } from '../../../lib/paths';
 import { prefetchLoader } from '../../loaders';
 import { NotFoundRoute } from '../not-found';
@@ -35,6 +36,11 @@ export function PollstersRoute() {
       <PageHeader
         title="Pollsters"
         description="Polling firms, the names they publish under, how much they polled, and how fully they disclose. Accuracy is on each firm's accuracy page, measured in audits."
+        actions={
+          <a href={`${env.apiBase}/pollsters?format=csv`} download className="text-sm font-medium text-accent-700 underline">
+            Download as CSV
+          </a>
+        }
       />
       {anyFictional && <FictionalDataNotice scope="the firms of the demo scenario and their polls" />}
       <PollstersTable />
@@ -95,7 +101,7 @@ function PollsterPage({ id }: { id: number }) {
       </Card>
       {canEdit && (
         <Card title="Edit the pollster" description="Replacing the aliases changes which names later imports match to this firm.">
-          <PollsterForm key={`${p.name}|${p.aliases.join('|')}|${p.notes ?? ''}`} pollster={p} />
+          <PollsterForm pollster={p} />
         </Card>
       )}
     </div>

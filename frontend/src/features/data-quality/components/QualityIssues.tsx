@@ -63,7 +63,7 @@ function buildColumns(showElection: boolean): DataTableColumn<QualityIssueDto>[]
           <ul className="space-y-0.5">
             {info.row.original.pollKeys.map((key) => (
               <li key={key}>
-                <Link to={paths.poll.href(key)} className="font-mono text-xs text-accent-700 underline">
+                <Link to={paths.poll.href(key)} className="font-mono text-xs whitespace-nowrap text-accent-700 underline">
                   {key}
                 </Link>
               </li>
@@ -119,6 +119,7 @@ export function QualityIssues({ issues, showElection = false, caption = 'Data-qu
         data={shown}
         getRowId={(row) => `${row.code}:${row.contestKey ?? ''}:${row.pollKeys.join(',')}:${row.message}`}
         searchLabel="Search the issues"
+        initialSorting={[{ id: 'severity', desc: true }]}
         emptyMessage={issues.length === 0 ? 'Every check passed: nothing to look at.' : 'No issue of this check.'}
       />
     </div>

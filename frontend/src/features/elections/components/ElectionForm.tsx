@@ -1,5 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { electionInputSchema, type ElectionDto, type ElectionInput } from '@veracast/shared-types';
+import { useEffect } from 'react';
 import { useForm } from 'react-hook-form';
 import { Alert, Button, Input } from '../../../components/ui';
 import { describeError } from '../../../lib/api-client';
@@ -7,6 +8,17 @@ import { useCreateElection } from '../api/create-election';
 import { useUpdateElection } from '../api/update-election';
 
 const emptyToNull = (value: unknown) => (value === '' || value === undefined ? null : value);
+
+function defaults(election?: ElectionDto): ElectionInput {
+  return {
+    key: election?.key ?? '',
+    name: election?.name ?? '',
+    date: election?.date ?? '',
+    jurisdiction: election?.jurisdiction ?? '',
+    blackoutStart: election?.blackoutStart ?? null,
+    blackoutEnd: election?.blackoutEnd ?? null,
+  };
+}
 
 export interface ElectionFormProps {
   /** The election to edit; without it the form creates one. */
@@ -19,18 +31,13 @@ export function ElectionForm({ election, onSaved }: ElectionFormProps) {
   const create = useCreateElection();
   const update = useUpdateElection();
   const mutation = election ? update : create;
-  const form = useForm<ElectionInput>({
-    resolver: zodResolver(electionInputSchema),
-    defaultValues: {
-      key: election?.key ?? '',
-      name: election?.name ?? '',
-      date: election?.date ?? '',
-      jurisdiction: election?.jurisdiction ?? '',
-      blackoutStart: election?.blackoutStart ?? null,
-      blackoutEnd: election?.blackoutEnd ?? null,
-    },
-  });
+  const form = useForm<ElectionInput>({ resolver: zodResolver(electionInputSchema), defaultValues: defaults(election) });
   const { errors } = form.formState;
+
+  // The saved election comes back from the server: show what is stored.
+  useEffect(() => {
+    if (election) form.reset(defaults(election));
+  }, [election, form]);
 
   function submit(values: ElectionInput) {
     if (election) {

@@ -1,5 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { ElectionDto } from '@veracast/shared-types';
+import { useEffect } from 'react';
 import { useForm } from 'react-hook-form';
 import { Alert, Button, Select } from '../../../components/ui';
 import { describeError } from '../../../lib/api-client';
@@ -19,6 +20,8 @@ export function OrientationForm({ election, blocs }: OrientationFormProps) {
     defaultValues: { blocA: election.blocA ?? '', blocB: election.blocB ?? '' },
   });
   const { errors } = form.formState;
+
+  useEffect(() => form.reset({ blocA: election.blocA ?? '', blocB: election.blocB ?? '' }), [election.blocA, election.blocB, form]);
 
   if (blocs.length < 2) return <p className="text-sm text-ink-600">Fewer than two blocs stand in this election, so there is nothing to set.</p>;
 

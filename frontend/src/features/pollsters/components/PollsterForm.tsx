@@ -1,5 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { pollsterInputSchema, type PollsterDto } from '@veracast/shared-types';
+import { useEffect } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { Alert, Button, Input, Textarea } from '../../../components/ui';
@@ -26,6 +27,10 @@ const formSchema = z.object({ name: z.string(), aliasesText: z.string(), notes: 
 type FormValues = z.input<typeof formSchema>;
 type PollsterInputValues = z.output<typeof formSchema>;
 
+function defaults(pollster?: PollsterDto): FormValues {
+  return { name: pollster?.name ?? '', aliasesText: pollster?.aliases.join('\n') ?? '', notes: pollster?.notes ?? '' };
+}
+
 export interface PollsterFormProps {
   /** The firm to edit; without it the form creates one. */
   pollster?: PollsterDto;
@@ -37,11 +42,12 @@ export function PollsterForm({ pollster, onSaved }: PollsterFormProps) {
   const create = useCreatePollster();
   const update = useUpdatePollster();
   const mutation = pollster ? update : create;
-  const form = useForm<FormValues, unknown, PollsterInputValues>({
-    resolver: zodResolver(formSchema),
-    defaultValues: { name: pollster?.name ?? '', aliasesText: pollster?.aliases.join('\n') ?? '', notes: pollster?.notes ?? '' },
-  });
+  const form = useForm<FormValues, unknown, PollsterInputValues>({ resolver: zodResolver(formSchema), defaultValues: defaults(pollster) });
   const { errors } = form.formState;
+
+  useEffect(() => {
+    if (pollster) form.reset(defaults(pollster));
+  }, [pollster, form]);
 
   function submit(values: PollsterInputValues) {
     if (pollster) update.mutate({ id: pollster.id, changes: values }, { onSuccess: (saved) => onSaved?.(saved) });
