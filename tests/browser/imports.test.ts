@@ -111,4 +111,31 @@ describe('importing polls through the browser', () => {
     const stored = (await (await page.request.get('/api/v1/polls/browser-map-b')).json()) as PollDto;
     expect(stored.sampleSize).toBe(800);
   });
+
+  it('maps the option columns of a wide file to the contest options and imports it', async () => {
+    const { page } = await app.signedInPage('analyst');
+    const response = await page.request.get(`/api/v1/contests/${CONTEST}`);
+    const contest = (await response.json()) as ContestDto;
+    const [first, second] = contest.options;
+    expect(first && second).toBeTruthy();
+    // One column named after an option's name, one after a key, a "DK" column and a note column.
+    const header = `poll_key,pollster,sponsor,contest_key,fieldwork_start,fieldwork_end,published_on,sample_size,population,mode,moe,${first!.name},${second!.key},DK,Notes`;
+    const row = `browser-wide-1,Harbourlight Opinion,,${CONTEST},2022-05-01,2022-05-03,2022-05-05,1000,lv,phone,3,37,31,12,checked twice`;
+    await page.goto('/imports');
+    await chooseFile(page, 'polls-wide.csv', `${header}\n${row}\n`);
+
+    expect(await page.getByRole('radio', { name: /^Wide/ }).isChecked()).toBe(true);
+    const optionFor = (column: string) => page.getByLabel(`Option held by file column ${column}`);
+    await expect.poll(() => optionFor(first!.name).inputValue()).toBe(first!.key);
+    expect(await optionFor(second!.key).inputValue()).toBe(second!.key);
+    expect(await optionFor('DK').inputValue()).toBe('undecided');
+    expect(await optionFor('Notes').inputValue()).toBe('');
+
+    await page.getByRole('button', { name: 'Check (dry run)' }).click();
+    await page.getByText('Dry run: the file is valid').waitFor();
+    await page.getByRole('button', { name: 'Import', exact: true }).click();
+    await page.getByRole('heading', { name: 'Import finished' }).waitFor();
+    const stored = (await (await page.request.get('/api/v1/polls/browser-wide-1')).json()) as PollDto;
+    expect(stored.shares).toEqual({ [first!.key]: 37, [second!.key]: 31, undecided: 12 });
+  });
 });

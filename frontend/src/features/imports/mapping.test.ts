@@ -65,8 +65,10 @@ describe('layouts and option columns', () => {
     expect(defaultOptionKey('Lantern Party', known)).toBe('lantern');
     expect(defaultOptionKey('DK', known)).toBe('undecided');
     expect(defaultOptionKey('Other', known)).toBe('other');
-    expect(defaultOptionKey('verdant', known)).toBe('verdant');
-    expect(defaultOptionKey('Vote %', known)).toBe('');
+    expect(defaultOptionKey('notes', known)).toBe('');
+    // Without the contest's options the header is the best guess, when it is a valid key.
+    expect(defaultOptionKey('verdant', [])).toBe('verdant');
+    expect(defaultOptionKey('Vote %', [])).toBe('');
   });
 });
 

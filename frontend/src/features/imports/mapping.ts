@@ -95,7 +95,8 @@ const KEY_RE = /^[a-z0-9][a-z0-9._-]{0,99}$/;
 
 /**
  * The option a wide-layout column most likely holds: a known option (or undecided/other) whose key
- * or name equals the header, else the header itself when it is a valid key, else none ('').
+ * or name equals the header; else, when the contest's options are not known, the header itself
+ * when it is a valid key; else none ('').
  */
 export function defaultOptionKey(header: string, known: readonly OptionChoice[]): string {
   const h = header.trim().toLowerCase();
@@ -106,6 +107,8 @@ export function defaultOptionKey(header: string, known: readonly OptionChoice[])
   if (byName) return byName.key;
   if ((RESERVED_OPTION_KEYS as readonly string[]).includes(n)) return n;
   if (['dk', 'dont_know', 'don_t_know', 'unsure', 'no_answer'].includes(n)) return 'undecided';
+  // When the contest's options are known, a column that matches none of them is likely a note.
+  if (known.length > 0) return '';
   return KEY_RE.test(h) ? h : '';
 }
 
