@@ -90,7 +90,7 @@ export interface Breakdown {
 }
 
 /** Mean ± t_{0.975, n−1}·s/√n (s with the n − 1 denominator); null for n < 2. */
-function tInterval(xs: readonly number[]): Interval | null {
+export function tInterval(xs: readonly number[]): Interval | null {
   if (xs.length < 2) return null;
   const m = mean(xs);
   const half = (studentTQuantile(0.975, xs.length - 1) * sampleStandardDeviation(xs)) / Math.sqrt(xs.length);

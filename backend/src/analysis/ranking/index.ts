@@ -45,6 +45,7 @@ export {
 } from './scorecards';
 export {
   breakdowns,
+  tInterval,
   DAYS_OUT_BINS,
   SAMPLE_SIZE_BINS,
   samplingFunnel,

@@ -1,6 +1,6 @@
 import type { AuditPollDto, AuditSettings } from '@veracast/shared-types';
 import { MetricInputError } from '../../analysis/errors';
-import { breakdowns, clusteredMean, DAYS_OUT_BINS, SAMPLE_SIZE_BINS, samplingFunnel, UNDECIDED_BINS, type Breakdown } from '../../analysis/ranking';
+import { breakdowns, clusteredMean, DAYS_OUT_BINS, SAMPLE_SIZE_BINS, samplingFunnel, tInterval, UNDECIDED_BINS, type Breakdown } from '../../analysis/ranking';
 import { historicalAverageInterval, qqPoints, tooCloseToCall } from '../../analysis/shared-error';
 import type { ElectionRow } from '../../queries/archive';
 import { usedPolls } from './compute';
@@ -28,8 +28,11 @@ export function auditBreakdowns(items: readonly AuditPollDto[], settings: AuditS
   const used = computable(usedPolls(items, settings));
   const polls = asBreakdownPolls(used);
   const categorical = (key: (p: Computable) => string) => safe(() => breakdowns(polls, { kind: 'categorical', key }));
-  const numeric = (xs: ReturnType<typeof asBreakdownPolls>, key: (p: Computable) => number | null, bins: typeof DAYS_OUT_BINS) =>
-    safe(() => breakdowns(xs, { kind: 'numeric', key, bins }));
+  // Numeric bins also carry their bounds (min included, max excluded; null for an open end).
+  const numeric = (xs: ReturnType<typeof asBreakdownPolls>, key: (p: Computable) => number | null, bins: typeof DAYS_OUT_BINS) => {
+    const b = safe(() => breakdowns(xs, { kind: 'numeric', key, bins }));
+    return b && { ...b, bins: b.bins.map((bin, i) => ({ ...bin, min: bins[i]!.min, max: Number.isFinite(bins[i]!.max) ? bins[i]!.max : null })) };
+  };
   const ns = [...new Set(used.map((p) => p.sampleSize))].sort((a, b) => a - b);
   const funnelNs = ns.length ? [ns[0]!, ...[250, 500, 750, 1000, 1500, 2000, 3000, 5000].filter((n) => n > ns[0]! && n < ns[ns.length - 1]!), ns[ns.length - 1]!] : [];
   const byElection: Record<string, unknown>[] = [];
@@ -41,6 +44,8 @@ export function auditBreakdowns(items: readonly AuditPollDto[], settings: AuditS
     byElection.push({
       electionKey: key, n: xs.length, meanAbs: abs.length ? abs.reduce((a, b) => a + b, 0) / abs.length : null,
       meanSigned: cm?.mean ?? (oriented.length === 1 ? oriented[0]!.marginError : null), lo: cm?.interval[0] ?? null, hi: cm?.interval[1] ?? null,
+      // t interval of the mean absolute error (polls taken as independent; too narrow when a contest has several polls).
+      absInterval: abs.length >= 2 ? safe(() => tInterval(abs)) : null,
     });
   }
   return {
