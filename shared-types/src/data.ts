@@ -187,7 +187,8 @@ export interface PollDto {
   key: string; pollsterId: number; pollster: string; sponsor: string | null; sponsorType: SponsorType | null;
   contestKey: string; electionKey: string; fieldworkStart: string; fieldworkEnd: string; publishedOn: string;
   sampleSize: number; population: Population; mode: Mode; moe: number | null; studyKey: string | null; isHeadline: boolean;
-  tracking: boolean; sourceUrl: string | null; shares: Record<string, number>; disclosure: DisclosureDto; fictional: boolean;
+  tracking: boolean; sourceUrl: string | null; tablesUrl: string | null; questionWording: boolean; weightingStatement: boolean;
+  shares: Record<string, number>; disclosure: DisclosureDto; fictional: boolean;
 }
 export interface DisclosureDto { items: Record<DisclosureItem, boolean>; completeness: number }
 export const DISCLOSURE_ITEMS = ['sponsor', 'firm', 'fieldworkDates', 'population', 'sampleSize', 'mode', 'statedMoe', 'weightingStatement', 'questionWording', 'tablesLink'] as const;

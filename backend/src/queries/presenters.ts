@@ -32,7 +32,7 @@ export function presentPoll(p: PollRow, contest: ContestRow, election: ElectionR
   return {
     key: p.key, pollsterId: p.pollsterId, pollster: p.pollster, sponsor: p.sponsor, sponsorType: p.sponsorType, contestKey: contest.key, electionKey: election.key,
     fieldworkStart: p.fieldworkStart, fieldworkEnd: p.fieldworkEnd, publishedOn: p.publishedOn, sampleSize: p.sampleSize, population: p.population, mode: p.mode,
-    moe: p.moe, studyKey: p.studyKey, isHeadline: p.isHeadline, tracking: p.tracking, sourceUrl: p.sourceUrl, shares: p.shares, disclosure: disclosureOf(p),
+    moe: p.moe, studyKey: p.studyKey, isHeadline: p.isHeadline, tracking: p.tracking, sourceUrl: p.sourceUrl, tablesUrl: p.tablesUrl, questionWording: p.questionWording, weightingStatement: p.weightingStatement, shares: p.shares, disclosure: disclosureOf(p),
     fictional: election.fictional,
   };
 }

@@ -2,7 +2,6 @@ import { cleanup, fireEvent, render, screen, within } from '@testing-library/rea
 import type { Role, User } from '@veracast/shared-types';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { COMING_SOON_TEXT } from '../components/ui';
 import { AppProviders } from './providers';
 import { createAppQueryClient } from './query-client';
 import { createAppRoutes } from './router';
@@ -108,12 +107,6 @@ describe('role-aware routing', () => {
     expect(new URLSearchParams(router.state.location.search).get('next')).toBe('/admin/mailbox');
     expect(screen.getByLabelText('E-mail address')).toBeTruthy();
     expect(screen.getByLabelText('Password')).toBeTruthy();
-  });
-
-  it('shows an honest placeholder for an area not built yet', async () => {
-    renderAt('/elections', signedIn('viewer'));
-    expect(await screen.findByRole('heading', { name: 'Elections', level: 1 })).toBeTruthy();
-    expect(screen.getByText(COMING_SOON_TEXT)).toBeTruthy();
   });
 
   it('answers an unknown address with the 404 page', async () => {

@@ -89,7 +89,8 @@ export function pollstersRouter(ctx: AppContext) {
     const body = parse(pollsterInputSchema.partial(), req.body);
     if (body.name && body.name !== firm.name) await firm.update({ name: body.name });
     if (body.notes !== undefined) await firm.update({ notes: body.notes });
-    if (body.aliases) {
+    // Aliases are replaced only when the request names them (the schema's default would be []).
+    if (Array.isArray((req.body as { aliases?: unknown })?.aliases) && body.aliases) {
       await PollsterAliasModel.destroy({ where: { pollsterId: id } });
       await saveAliases(id, body.aliases);
     }

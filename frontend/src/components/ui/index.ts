@@ -2,7 +2,6 @@ export { AccessDenied } from './AccessDenied';
 export { Alert, type AlertTone } from './Alert';
 export { Button, LinkButton, buttonClasses, type ButtonProps, type ButtonVariant } from './Button';
 export { Card } from './Card';
-export { ComingSoon, COMING_SOON_TEXT } from './ComingSoon';
 export { CopyButton } from './CopyButton';
 export {
   DataTable,

@@ -1,7 +1,9 @@
 import type { AuditDto } from '@veracast/shared-types';
 import { lazy, Suspense } from 'react';
 import { Alert, Card, LoadingState } from '../../../components/ui';
+import { Link } from 'react-router-dom';
 import { describeError } from '../../../lib/api-client';
+import { paths } from '../../../lib/paths';
 import { auditPollsCsvUrl, useAuditPolls } from '../api/list-audit-polls';
 import { AuditHeadline } from './AuditHeadline';
 import { AuditPollsTable } from './AuditPollsTable';
@@ -22,6 +24,23 @@ export function AuditView({ audit, canRerun }: AuditViewProps) {
   return (
     <div className="space-y-6">
       {audit.outOfDate && <OutOfDateNotice audit={audit} canRerun={canRerun} />}
+
+      <nav aria-label="Analyses of this audit" className="flex flex-wrap gap-x-6 gap-y-2 rounded-lg border border-ink-200 bg-white px-4 py-3 text-sm">
+        <Link className="font-medium text-accent-700 underline-offset-2 hover:underline" to={paths.auditRankings.href(audit.id)}>
+          Pollster rankings
+        </Link>
+        <Link className="font-medium text-accent-700 underline-offset-2 hover:underline" to={paths.auditBreakdowns.href(audit.id)}>
+          Where the error came from
+        </Link>
+        {audit.elections.map((e) => (
+          <Link key={e.key} className="font-medium text-accent-700 underline-offset-2 hover:underline" to={paths.auditSharedError.href(audit.id, e.key)}>
+            Shared error: {e.name}
+          </Link>
+        ))}
+        <Link className="font-medium text-accent-700 underline-offset-2 hover:underline" to={paths.auditHistory.href(audit.id)}>
+          Across elections
+        </Link>
+      </nav>
 
       <Card title="Headline figures" description="Over the polls the audit uses. Every figure links to its formula.">
         <AuditHeadline headline={audit.headline} finalOnly={audit.settings.finalOnly} windowDays={audit.settings.windowDays} />

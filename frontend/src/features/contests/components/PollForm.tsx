@@ -76,16 +76,6 @@ function shareRows(contest: ContestDto, poll?: PollDto) {
   return rows.map((row) => ({ ...row, share: poll?.shares[row.key] === undefined ? '' : String(poll.shares[row.key]) }));
 }
 
-/**
- * The poll's full-tables link. `PollDto` does not carry it yet (only whether there is one); read it
- * when the server sends it so that an edit does not clear it.
- */
-function storedTablesUrl(poll?: PollDto): string | null | undefined {
-  if (!poll) return undefined;
-  const value = (poll as PollDto & { tablesUrl?: unknown }).tablesUrl;
-  return typeof value === 'string' || value === null ? value : undefined;
-}
-
 function defaults(contest: ContestDto, poll?: PollDto): PollFormValues {
   return {
     key: poll?.key ?? '',
@@ -103,9 +93,9 @@ function defaults(contest: ContestDto, poll?: PollDto): PollFormValues {
     isHeadline: poll?.isHeadline ?? true,
     tracking: poll?.tracking ?? false,
     sourceUrl: poll?.sourceUrl ?? '',
-    questionWording: poll?.disclosure.items.questionWording ?? false,
-    weightingStatement: poll?.disclosure.items.weightingStatement ?? false,
-    tablesUrl: storedTablesUrl(poll) ?? '',
+    questionWording: poll?.questionWording ?? false,
+    weightingStatement: poll?.weightingStatement ?? false,
+    tablesUrl: poll?.tablesUrl ?? '',
     shares: shareRows(contest, poll),
   };
 }
@@ -161,12 +151,6 @@ export function PollForm({ contest, pollsters, poll, onDone }: PollFormProps) {
     >
       {save.isError && <Alert tone="danger" title="The poll was not saved">{describeError(save.error)}</Alert>}
       {save.isSuccess && !poll && <Alert tone="success">Poll {save.data.key} was added.</Alert>}
-      {poll?.disclosure.items.tablesLink && storedTablesUrl(poll) === undefined && (
-        <Alert tone="caution" title="Enter the full tables link again">
-          This poll has a link to its full tables, but the archive does not send it to this form. Saving without it would
-          remove it.
-        </Alert>
-      )}
       <fieldset className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
         <legend className="mb-2 text-sm font-semibold text-ink-900">The poll</legend>
         <Input label="Poll key" disabled={Boolean(poll)} autoComplete="off" error={errors.key?.message} {...form.register('key')} />

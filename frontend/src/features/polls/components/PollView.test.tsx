@@ -28,7 +28,7 @@ const contest: ContestDto = {
 const poll: PollDetail = {
   key: 'p-1', pollsterId: 1, pollster: 'Aster Polling', sponsor: null, sponsorType: null, contestKey: 'c-national', electionKey: 'e-2026',
   fieldworkStart: '2026-10-10', fieldworkEnd: '2026-10-15', publishedOn: '2026-10-16', sampleSize: 1000, population: 'lv', mode: 'online', moe: 3,
-  studyKey: null, isHeadline: true, tracking: false, sourceUrl: null, shares: { lantern: 48, oak: 44, undecided: 8 },
+  studyKey: null, isHeadline: true, tracking: false, sourceUrl: null, tablesUrl: null, questionWording: false, weightingStatement: false, shares: { lantern: 48, oak: 44, undecided: 8 },
   disclosure: { items: {} as PollDetail['disclosure']['items'], completeness: 0.6 }, fictional: true, contest,
   metrics: {
     raw: buildMetrics(),
