@@ -1,6 +1,6 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { DEMO_POLLSTERS, generateDemo } from '@veracast/database';
-import { ElectionModel } from '../db/models';
+import { ChangeLogModel, ElectionModel } from '../db/models';
 import { importResults } from './imports/results';
 import { importPolls } from './imports/polls';
 import { normalizeName } from './imports/csv';
@@ -28,5 +28,12 @@ export async function loadDemo(sequelize: Sequelize, userId: number | null): Pro
   if (polls.httpStatus !== 201) throw new Error(`demo polls did not import: ${JSON.stringify(polls.errors.slice(0, 5))}`);
   // The demo loads only into an empty archive, so every election now present is the demo's.
   await ElectionModel.update({ fictional: true }, { where: {} });
+  // As a reviewer would: orient every general election the same way (Oakbound against Lantern) and
+  // the referendum YES against NO, so signed errors compare across elections.
+  for (const e of await ElectionModel.findAll()) {
+    const [blocA, blocB] = e.key.endsWith('-referendum') ? ['YES', 'NO'] : ['OAK', 'LAN'];
+    await e.update({ blocA, blocB });
+    await ChangeLogModel.create({ entity: 'election', entityKey: e.key, action: 'set_orientation', userId, reason: 'Demo scenario: one orientation across elections', beforeValue: null, afterValue: JSON.stringify({ blocA, blocB }) });
+  }
   return { loaded: true, polls: polls.created };
 }
