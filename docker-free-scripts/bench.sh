@@ -1,7 +1,10 @@
 #!/usr/bin/env bash
 # npm run bench: speed and memory benchmarks against the real MariaDB.
+# Prints PASS/MISS against each target and writes bench-output/*.json; fails only on a broken run.
+# BENCH_POLLS (default 100000) sizes the archive; SKIP_NPM_CI=1 leaves node_modules as it is.
 source "$(dirname "$0")/lib.sh"
-ensure_node_modules
+
+[ "${SKIP_NPM_CI:-0}" = 1 ] || ensure_node_modules
 db_start
 app_env
 cd "$ROOT"
