@@ -1,11 +1,12 @@
 /**
- * `npm run bench`: the import benchmark (issue 3 §8) on a generated archive in a throw-away
- * database, dropped at the end whatever happens.
+ * `npm run bench`: the import benchmark (issue 3 §8) and the audit benchmark (issue 4 §6) on one
+ * generated archive in a throw-away database, dropped at the end whatever happens.
  * BENCH_POLLS (default 100000) and BENCH_SEED (default 1) change the archive for quick runs.
  * Targets are printed as PASS/MISS; nothing here fails on a miss, only on a broken run.
  */
 import { openBenchArchive } from './archive';
 import { runImportBench } from './import-bench';
+import { runAuditBench } from './audit-bench';
 import { machine, round } from './support';
 
 const nPolls = Number(process.env.BENCH_POLLS ?? 100_000);
@@ -18,6 +19,7 @@ async function main() {
   try {
     process.stdout.write(`database ${archive.db.name}; archive generated in ${round(archive.generateSeconds)} s\n\n`);
     await runImportBench(archive);
+    await runAuditBench(archive);
   } finally {
     await archive.close();
     process.stdout.write(`dropped ${archive.db.name}\n`);

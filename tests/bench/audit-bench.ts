@@ -1,0 +1,242 @@
+/**
+ * Audit benchmark (issue 4 §6): createAudit end to end against a pandas script over the same rows.
+ *
+ * C = createAudit over every bench election with the default settings (read set-based, compute
+ *     every per-poll metric, headline, scorecards, shared error, store in one transaction).
+ * D = /usr/bin/python3 tests/bench/pandas_audit.py: start-up, read the same rows from MariaDB,
+ *     compute reference pairs, margin errors, M3, M5 and MTK's A per poll, write them to a CSV.
+ * The per-poll values of both are compared afterwards (an outside check of the audit's numbers).
+ */
+import fs from 'node:fs';
+import path from 'node:path';
+import { spawn } from 'node:child_process';
+import { performance } from 'node:perf_hooks';
+import { QueryTypes } from 'sequelize';
+import { auditCreateSchema, type AuditPollDto } from '@veracast/shared-types';
+import { createAudit, loadAuditPolls } from '../../backend/src/commands/audits/create-audit';
+import { loadAuditInputs } from '../../backend/src/commands/audits/inputs';
+import { computeAuditPolls, headline, scorecardsFor, seedOf, sharedErrorFor } from '../../backend/src/commands/audits/compute';
+import type { BenchArchive } from './archive';
+import {
+  collectGarbage, printTable, queriesTotal, ROOT, round, sortedBuckets, timeQueries, toMb, verdict, withMemorySampling, writeJson, type QueryTiming,
+} from './support';
+
+const RATIO_TARGET = 1;
+const PYTHON = '/usr/bin/python3';
+const TOLERANCE = 1e-9;
+
+interface PandasReport {
+  seconds: number;
+  phases: Record<string, number>;
+  counts: Record<string, number>;
+  versions: Record<string, string>;
+}
+
+interface PandasPoll {
+  refA: string; refB: string; basis: string;
+  marginError: number | null; absMarginError: number | null; mosteller3: number | null; mosteller5: number | null; mtkA: number | null;
+}
+
+export interface AuditBenchResult {
+  polls: number;
+  elections: number;
+  /** createAudit's wall time; when it failed, the time until it failed (a lower bound of C). */
+  auditSeconds: number;
+  auditError: { code: string | null; message: string; statementMegabytes: number | null } | null;
+  /** C/D; a lower bound when createAudit failed. */
+  pandasSeconds: { wall: number; script: number; phases: Record<string, number> };
+  ratio: number;
+  ratioIsLowerBound: boolean;
+  ratioTarget: number;
+  ratioPass: boolean;
+  memory: { rssPeakMb: number; heapUsedPeakMb: number; kernelPeakRssMb: number | null };
+  crossCheck: { source: 'stored audit (loadAuditPolls)' | 'computeAuditPolls (createAudit failed to store)'; compared: number; maxAbsDiff: Record<string, number>; overTolerance: number; nullMismatches: number; pairMismatches: number; tolerance: number };
+  breakdown: { queries: QueryTiming[]; queriesSeconds: number; javascript: QueryTiming[]; phases: Record<string, number> };
+  pandasVersions: Record<string, string>;
+}
+
+function runPandas(archive: BenchArchive, electionKeys: readonly string[], outFile: string): Promise<{ wall: number; report: PandasReport }> {
+  const { config } = archive.db;
+  const env = {
+    PATH: process.env.PATH ?? '/usr/bin:/bin', HOME: process.env.HOME ?? '/tmp', DB_HOST: config.DB_HOST, DB_PORT: String(config.DB_PORT),
+    DB_USER: config.DB_USER, DB_PASSWORD: config.DB_PASSWORD, DB_NAME: config.DB_NAME, BENCH_ELECTIONS: electionKeys.join(','), BENCH_OUT: outFile,
+  };
+  return new Promise((resolve, reject) => {
+    const start = performance.now();
+    const child = spawn(PYTHON, [path.join(ROOT, 'tests/bench/pandas_audit.py')], { env, stdio: ['ignore', 'pipe', 'pipe'] });
+    let stdout = '';
+    let stderr = '';
+    child.stdout.on('data', (c: Buffer) => (stdout += c.toString()));
+    child.stderr.on('data', (c: Buffer) => (stderr += c.toString()));
+    child.on('error', reject);
+    child.on('close', (code) => {
+      const wall = (performance.now() - start) / 1000;
+      if (code !== 0) return reject(new Error(`pandas_audit.py exited with ${code}: ${stderr.slice(-2000)}`));
+      const line = stdout.trim().split('\n').pop() ?? '';
+      try {
+        resolve({ wall, report: JSON.parse(line) as PandasReport });
+      } catch {
+        reject(new Error(`pandas_audit.py printed no JSON: ${stdout.slice(-500)} ${stderr.slice(-500)}`));
+      }
+    });
+  });
+}
+
+function readPandasCsv(file: string): Map<string, PandasPoll> {
+  const [head, ...lines] = fs.readFileSync(file, 'utf8').trim().split('\n');
+  const cols = (head ?? '').split(',');
+  const at = (name: string) => {
+    const i = cols.indexOf(name);
+    if (i < 0) throw new Error(`pandas output lacks column ${name}`);
+    return i;
+  };
+  const ix = { key: at('poll_key'), a: at('ref_a'), b: at('ref_b'), basis: at('basis'), me: at('margin_error'), ame: at('abs_margin_error'), m3: at('mosteller3'), m5: at('mosteller5'), mtk: at('mtk_a') };
+  const num = (v: string | undefined) => (v === undefined || v === '' ? null : Number(v));
+  const out = new Map<string, PandasPoll>();
+  for (const line of lines) {
+    const c = line.split(',');
+    out.set(c[ix.key] ?? '', {
+      refA: c[ix.a] ?? '', refB: c[ix.b] ?? '', basis: c[ix.basis] ?? '', marginError: num(c[ix.me]), absMarginError: num(c[ix.ame]),
+      mosteller3: num(c[ix.m3]), mosteller5: num(c[ix.m5]), mtkA: num(c[ix.mtk]),
+    });
+  }
+  return out;
+}
+
+function crossCheck(audit: readonly AuditPollDto[], pandas: Map<string, PandasPoll>) {
+  const fields = ['marginError', 'absMarginError', 'mosteller3', 'mosteller5', 'mtkA'] as const;
+  const maxAbsDiff: Record<string, number> = Object.fromEntries(fields.map((f) => [f, 0]));
+  let overTolerance = 0;
+  let nullMismatches = 0;
+  let pairMismatches = 0;
+  let compared = 0;
+  for (const a of audit) {
+    const p = pandas.get(a.pollKey);
+    if (!p) {
+      nullMismatches++;
+      continue;
+    }
+    compared++;
+    if (a.refA !== null && (a.refA !== p.refA || a.refB !== p.refB || a.refBasis !== p.basis)) pairMismatches++;
+    for (const f of fields) {
+      const x = a[f];
+      const y = p[f];
+      if (x === null || y === null) {
+        if (x !== y) nullMismatches++;
+        continue;
+      }
+      const d = Math.abs(x - y);
+      maxAbsDiff[f] = Math.max(maxAbsDiff[f] ?? 0, d);
+      if (!(d <= TOLERANCE)) overTolerance++;
+    }
+  }
+  if (pandas.size !== audit.length) nullMismatches += Math.abs(pandas.size - audit.length);
+  return { compared, maxAbsDiff, overTolerance, nullMismatches, pairMismatches, tolerance: TOLERANCE };
+}
+
+/** What a failed createAudit reports: the server's code and message, and the statement's size. */
+function describeFailure(err: unknown): NonNullable<AuditBenchResult['auditError']> {
+  const parent = (err as { parent?: { code?: string; sqlMessage?: string; text?: string; message?: string; sql?: string } }).parent;
+  const message = parent?.sqlMessage ?? parent?.text ?? parent?.message ?? (err instanceof Error ? err.message : String(err));
+  return {
+    code: parent?.code ?? null,
+    message: message.length > 200 ? `${message.slice(0, 200)}...` : message,
+    statementMegabytes: parent?.sql ? toMb(Buffer.byteLength(parent.sql)) : null,
+  };
+}
+
+/** The phases of createAudit timed one by one (a second, separate pass over the same data). */
+async function phaseTimes(archive: BenchArchive, settings: ReturnType<typeof auditCreateSchema.parse>) {
+  const phases: Record<string, number> = {};
+  const time = async <T,>(name: string, f: () => T | Promise<T>): Promise<T> => {
+    const start = performance.now();
+    const v = await f();
+    phases[name] = round((performance.now() - start) / 1000);
+    return v;
+  };
+  const inputs = await time('loadAuditInputs (read + hash)', () => loadAuditInputs(archive.sequelize, settings.electionKeys));
+  const items = await time('computeAuditPolls', () => computeAuditPolls(inputs, settings));
+  await time('headline', () => headline(items, settings, inputs.elections, inputs.contests));
+  await time('scorecardsFor (1000 draws)', () => scorecardsFor(items, settings, seedOf(inputs.dataHash)));
+  await time('sharedErrorFor (every election)', () => inputs.elections.map((e) => sharedErrorFor(items, settings, e.key)));
+  await time('JSON.stringify of every poll row', () => items.reduce((n, i) => n + JSON.stringify(i).length, 0));
+  return { phases, items };
+}
+
+export async function runAuditBench(archive: BenchArchive): Promise<AuditBenchResult> {
+  const { sequelize } = archive;
+  const electionKeys = (await sequelize.query<{ key: string }>('SELECT `key` FROM elections ORDER BY `key`', { type: QueryTypes.SELECT })).map((r) => r.key);
+  const name = `Benchmark audit of ${archive.nPolls} polls`;
+  const settings = auditCreateSchema.parse({ name, electionKeys });
+
+  collectGarbage();
+  const c = await withMemorySampling(async () => {
+    const timing = timeQueries(sequelize);
+    try {
+      return { created: await createAudit(sequelize, name, settings, archive.userId), timing, error: null };
+    } catch (err) {
+      return { created: null, timing, error: describeFailure(err) };
+    } finally {
+      timing.finish();
+    }
+  });
+  const { created, timing, error } = c.value;
+  collectGarbage();
+
+  const outFile = path.join(archive.dir, 'pandas-audit.csv');
+  const d = await runPandas(archive, electionKeys, outFile);
+
+  collectGarbage();
+  const { phases, items } = await phaseTimes(archive, settings);
+  const check = {
+    source: created ? 'stored audit (loadAuditPolls)' as const : 'computeAuditPolls (createAudit failed to store)' as const,
+    ...crossCheck(created ? await loadAuditPolls(sequelize, created.id) : items, readPandasCsv(outFile)),
+  };
+
+  const queries = sortedBuckets(timing.buckets);
+  const javascript = sortedBuckets(timing.gaps);
+  const ratio = c.seconds / d.wall;
+  const result: AuditBenchResult = {
+    polls: created?.pollCount ?? items.length,
+    elections: electionKeys.length,
+    auditSeconds: round(c.seconds),
+    auditError: error,
+    pandasSeconds: { wall: round(d.wall), script: round(d.report.seconds), phases: Object.fromEntries(Object.entries(d.report.phases).map(([k, v]) => [k, round(v)])) },
+    ratio: round(ratio, 2),
+    ratioIsLowerBound: error !== null,
+    ratioTarget: RATIO_TARGET,
+    ratioPass: error === null && ratio <= RATIO_TARGET,
+    memory: { rssPeakMb: toMb(c.memory.rssPeak), heapUsedPeakMb: toMb(c.memory.heapUsedPeak), kernelPeakRssMb: c.memory.kernelPeak === null ? null : toMb(c.memory.kernelPeak) },
+    crossCheck: check,
+    breakdown: { queries, queriesSeconds: round(queriesTotal(timing.buckets)), javascript, phases },
+    pandasVersions: d.report.versions,
+  };
+
+  const fmt = (x: number) => (x === 0 ? '0' : x.toExponential(2));
+  printTable(`Audit benchmark: ${archive.nPolls.toLocaleString('en')} polls in ${electionKeys.length} elections (issue 4 §6)`, [
+    ['polls audited', `${result.polls.toLocaleString('en')} (pandas read ${d.report.counts.polls ?? '?'} polls, ${d.report.counts.shares ?? '?'} shares)`],
+    error
+      ? ['C createAudit (read, compute, store)', `FAILED after ${result.auditSeconds} s: ${error.code ?? ''} ${error.message.slice(0, 90)} (statement of ${error.statementMegabytes ?? '?'} MB)`]
+      : ['C createAudit (read, compute, store)', `${result.auditSeconds} s`],
+    ['D pandas script, wall time', `${result.pandasSeconds.wall} s`],
+    ['D pandas script, own clock', `${result.pandasSeconds.script} s (${Object.entries(result.pandasSeconds.phases).map(([k, v]) => `${k} ${v}`).join(', ')})`],
+    ['ratio C/D (wall)', error ? `>= ${result.ratio} (C did not finish)` : `${result.ratio}`],
+    ['peak RSS during C', `${result.memory.rssPeakMb} MB sampled, ${result.memory.kernelPeakRssMb ?? '?'} MB kernel; heapUsed ${result.memory.heapUsedPeakMb} MB`],
+    ['cross-check polls compared', `${check.compared.toLocaleString('en')} (${check.source})`],
+    ['  max |diff| margin / |margin|', `${fmt(check.maxAbsDiff.marginError ?? 0)} / ${fmt(check.maxAbsDiff.absMarginError ?? 0)}`],
+    ['  max |diff| M3 / M5 / MTK A', `${fmt(check.maxAbsDiff.mosteller3 ?? 0)} / ${fmt(check.maxAbsDiff.mosteller5 ?? 0)} / ${fmt(check.maxAbsDiff.mtkA ?? 0)}`],
+    [`  values over ${TOLERANCE} / null mismatches / pair mismatches`, `${check.overTolerance} / ${check.nullMismatches} / ${check.pairMismatches}`],
+    [`target ratio C/D <= ${RATIO_TARGET}`, verdict(result.ratioPass)],
+  ]);
+  printTable('Where C spends its time', [
+    ['SQL statements during C (wall time)', `${result.breakdown.queriesSeconds} s`],
+    ...queries.slice(0, 6).map((b) => [`  ${b.label}`, `${b.seconds} s x${b.count}`] as const),
+    ['JavaScript between statements during C', `${round(queriesTotal(timing.gaps))} s`],
+    ...javascript.slice(0, 4).map((b) => [`  ${b.label}`, `${b.seconds} s x${b.count}`] as const),
+    ['Phases, timed one by one in a second pass:', ''],
+    ...Object.entries(phases).map(([k, v]) => [`  ${k}`, `${v} s`] as const),
+  ]);
+  const file = writeJson('audit.json', { benchmark: 'audit', nPolls: archive.nPolls, seed: archive.seed, at: new Date().toISOString(), node: process.version, ...result });
+  process.stdout.write(`wrote ${path.relative(process.cwd(), file)}\n\n`);
+  return result;
+}
