@@ -1,47 +1,6 @@
-/** Downloads of a chart (SVG, PNG) and of its data (CSV), all made in the browser. */
+/** Downloads of a chart as a picture (SVG, PNG), made in the browser. */
 
-export type CsvCell = string | number | boolean | null | undefined;
-
-/**
- * One CSV cell: a text that a spreadsheet would run as a formula (starting with = + - @, or a tab
- * or carriage return) gets a leading apostrophe; numbers stay numbers; quotes are doubled.
- */
-export function csvCell(value: CsvCell): string {
-  if (value === null || value === undefined) return '';
-  if (typeof value === 'number') return Number.isFinite(value) ? String(value) : '';
-  let text = String(value);
-  if (/^[=+\-@\t\r]/.test(text)) text = `'${text}`;
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
-
-export interface CsvColumn<Row> {
-  header: string;
-  value: (row: Row) => CsvCell;
-}
-
-/** A CSV text with a header row and CRLF line ends. */
-export function toCsv<Row>(columns: readonly CsvColumn<Row>[], rows: readonly Row[]): string {
-  const lines = [columns.map((column) => csvCell(column.header)).join(',')];
-  for (const row of rows) lines.push(columns.map((column) => csvCell(column.value(row))).join(','));
-  return `${lines.join('\r\n')}\r\n`;
-}
-
-export function downloadBlob(blob: Blob, filename: string): void {
-  const url = URL.createObjectURL(blob);
-  const link = document.createElement('a');
-  link.href = url;
-  link.download = filename;
-  link.rel = 'noopener';
-  document.body.append(link);
-  link.click();
-  link.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 1000);
-}
-
-export function downloadCsv(text: string, filename: string): void {
-  // The byte-order mark lets spreadsheets read the file as UTF-8.
-  downloadBlob(new Blob(['\uFEFF', text], { type: 'text/csv;charset=utf-8' }), filename);
-}
+import { downloadBlob } from '../../lib/download';
 
 /** A standalone SVG document of a chart, with its size and a white background. */
 export function serializeSvg(svg: SVGSVGElement): { text: string; width: number; height: number } {

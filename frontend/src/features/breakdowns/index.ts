@@ -4,4 +4,3 @@ export type * from './api/types';
 export { AuditBreakdowns, type AuditBreakdownsProps } from './components/AuditBreakdowns';
 export { FirmErrorCharts, type FirmErrorChartsProps } from './components/FirmErrorCharts';
 export { ChartFigure, type ChartFigureProps, type ChartRenderContext } from './components/chart/ChartFigure';
-export { neutraliseCsvCell, toCsv, type CsvRow } from './components/chart/csv';

@@ -1,39 +1,4 @@
-import Papa from 'papaparse';
-
-export interface CsvColumn<Row> {
-  header: string;
-  value: (row: Row) => string | number | boolean | null | undefined;
-}
-
-/**
- * A text cell that begins with = + - @ (or tab / carriage return) would run as a formula in a
- * spreadsheet; it gets a leading apostrophe. Numbers are written as numbers. [practice: OWASP CSV injection]
- */
-export function safeCell(value: string | number | boolean | null | undefined): string | number | boolean {
-  if (value === null || value === undefined) return '';
-  if (typeof value === 'number') return Number.isFinite(value) ? value : '';
-  if (typeof value === 'boolean') return value;
-  return /^[=+\-@\t\r]/.test(value) ? `'${value}` : value;
-}
-
-export function rowsToCsv<Row>(rows: readonly Row[], columns: readonly CsvColumn<Row>[]): string {
-  return Papa.unparse({ fields: columns.map((c) => c.header), data: rows.map((r) => columns.map((c) => safeCell(c.value(r)))) }, { newline: '\r\n' });
-}
-
-export function saveBlob(blob: Blob, filename: string): void {
-  const href = URL.createObjectURL(blob);
-  const anchor = document.createElement('a');
-  anchor.href = href;
-  anchor.download = filename;
-  document.body.append(anchor);
-  anchor.click();
-  anchor.remove();
-  window.setTimeout(() => URL.revokeObjectURL(href), 2000);
-}
-
-export function saveCsv<Row>(filename: string, rows: readonly Row[], columns: readonly CsvColumn<Row>[]): void {
-  saveBlob(new Blob(['\uFEFF', rowsToCsv(rows, columns)], { type: 'text/csv;charset=utf-8' }), filename);
-}
+import { downloadBlob } from '../../lib/download';
 
 const INLINED = ['fill', 'fill-opacity', 'stroke', 'stroke-width', 'stroke-dasharray', 'opacity', 'font-family', 'font-size', 'font-weight', 'text-anchor'];
 
@@ -57,7 +22,7 @@ export function svgText(svg: SVGSVGElement): string {
 }
 
 export function saveSvg(svg: SVGSVGElement, filename: string): void {
-  saveBlob(new Blob([svgText(svg)], { type: 'image/svg+xml' }), filename);
+  downloadBlob(new Blob([svgText(svg)], { type: 'image/svg+xml' }), filename);
 }
 
 /** Draws the SVG on a white canvas at twice its size and saves it as PNG. */
@@ -83,7 +48,7 @@ export async function savePng(svg: SVGSVGElement, filename: string): Promise<voi
     context.drawImage(image, 0, 0, canvas.width, canvas.height);
     const blob = await new Promise<Blob | null>((resolve) => canvas.toBlob(resolve, 'image/png'));
     if (!blob) throw new Error('The image could not be made.');
-    saveBlob(blob, filename);
+    downloadBlob(blob, filename);
   } finally {
     URL.revokeObjectURL(url);
   }

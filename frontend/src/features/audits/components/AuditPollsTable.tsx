@@ -16,7 +16,7 @@ import { Link } from 'react-router-dom';
 import { Button } from '../../../components/ui';
 import { cn } from '../../../lib/cn';
 import { paths } from '../../../lib/paths';
-import { downloadCsv, toCsv, type CsvCell } from '../chart-export';
+import { downloadCsv, toCsv, type CsvValue } from '../../../lib/csv';
 import { formatBoolean, formatCount, formatPoints, formatRate, formatSignedPoints, formatStat } from '../format';
 import { METHOD_ANCHORS, type MethodAnchor } from '../method-catalogue';
 import { AUDIT_POLL_STATUS_LABELS, auditPollStatus, type AuditPollStatus } from '../used';
@@ -264,8 +264,8 @@ export function AuditPollsTable({ polls, settings, elections, auditId, serverCsv
 
   function downloadRows() {
     const sorted = table.getSortedRowModel().rows.map((r) => r.original);
-    const csvColumns = visibleSpecs.map((s) => ({ header: s.id, value: (r: AuditPollRow): CsvCell => s.value(r) }));
-    downloadCsv(toCsv(csvColumns, sorted), `audit-${auditId}-polls-selection.csv`);
+    const csvColumns = visibleSpecs.map((s) => ({ header: s.id, value: (r: AuditPollRow): CsvValue => s.value(r) }));
+    downloadCsv(toCsv(sorted, csvColumns), `audit-${auditId}-polls-selection.csv`);
   }
 
   return (

@@ -1,6 +1,7 @@
 import { useId, useRef, useState, type ReactNode } from 'react';
 import { Alert, Button } from '../../../components/ui';
-import { downloadCsv, downloadPng, downloadSvg } from '../chart-export';
+import { downloadCsv } from '../../../lib/csv';
+import { downloadPng, downloadSvg } from '../chart-export';
 import type { MethodAnchor } from '../method-catalogue';
 import { FormulaLink } from './FormulaLink';
 

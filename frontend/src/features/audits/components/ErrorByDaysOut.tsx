@@ -1,6 +1,6 @@
 import { Axis, GlyphSeries, Grid, LineSeries, Tooltip, XYChart } from '@visx/xychart';
 import { useMemo } from 'react';
-import { toCsv } from '../chart-export';
+import { toCsv } from '../../../lib/csv';
 import { formatCount, formatPoints, formatSignedPoints } from '../format';
 import { METHOD_ANCHORS } from '../method-catalogue';
 import { ChartFrame } from './ChartFrame';
@@ -54,6 +54,7 @@ export function ErrorByDaysOut({ points, filename, orientation, scope }: ErrorBy
 
   const csv = () =>
     toCsv(
+      data,
       [
         { header: 'poll_key', value: (p: DaysOutPoint) => p.pollKey },
         { header: 'pollster', value: (p) => p.pollster },
@@ -61,7 +62,6 @@ export function ErrorByDaysOut({ points, filename, orientation, scope }: ErrorBy
         { header: 'days_out', value: (p) => p.daysOut },
         { header: 'margin_error_pts', value: (p) => p.marginError },
       ],
-      data,
     );
 
   return (

@@ -1,6 +1,6 @@
 import { Axis, BarSeries, Grid, Tooltip, XYChart } from '@visx/xychart';
 import { useMemo } from 'react';
-import { toCsv } from '../chart-export';
+import { toCsv } from '../../../lib/csv';
 import { formatCount, formatSignedPoints } from '../format';
 import { binValues, type HistogramBin } from '../histogram';
 import { METHOD_ANCHORS } from '../method-catalogue';
@@ -34,12 +34,12 @@ export function SignedErrorHistogram({ errors, filename, orientation }: SignedEr
 
   const csv = () =>
     toCsv(
+      bars,
       [
         { header: 'lower_pts', value: (bar: Bar) => bar.lower },
         { header: 'upper_pts', value: (bar) => bar.upper },
         { header: 'polls', value: (bar) => bar.count },
       ],
-      bars,
     );
 
   return (

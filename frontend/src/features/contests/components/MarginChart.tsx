@@ -4,7 +4,8 @@ import { Link } from 'react-router-dom';
 import { Alert, Button, DataTable, createDataTableColumnHelper } from '../../../components/ui';
 import { paths } from '../../../lib/paths';
 import { formatDate } from '../../../utils/format';
-import { saveCsv, savePng, saveSvg, type CsvColumn } from '../download';
+import { downloadCsv, toCsv, type CsvColumn } from '../../../lib/csv';
+import { savePng, saveSvg } from '../download';
 import { formatSignedPoints } from '../format';
 import type { MarginPoint } from '../margins';
 
@@ -141,7 +142,7 @@ export function MarginChart({ contestKey, points, certified, electionDate, nameA
         <Button size="sm" variant="ghost" onClick={() => void save('png')} disabled={view !== 'chart'}>
           Save chart as PNG
         </Button>
-        <Button size="sm" variant="ghost" onClick={() => saveCsv(`${base}.csv`, points, CSV_COLUMNS)}>
+        <Button size="sm" variant="ghost" onClick={() => downloadCsv(toCsv(points, CSV_COLUMNS), `${base}.csv`)}>
           Download data (CSV)
         </Button>
       </div>

@@ -1,6 +1,7 @@
 import { useRef, useState, type ReactNode } from 'react';
 import { Alert, Button, Card } from '../../../components/ui';
-import { downloadCsv, safeFilename, type CsvColumn } from '../lib/csv';
+import { downloadCsv, toCsv, type CsvColumn } from '../../../lib/csv';
+import { safeFilename } from '../../../lib/download';
 import { downloadPng, downloadSvg } from '../lib/svg-export';
 
 export interface ChartFigureProps<Row> {
@@ -56,7 +57,7 @@ export function ChartFigure<Row>({
     setFailure(null);
     try {
       if (kind === 'csv') {
-        downloadCsv(`${base}.csv`, csvRows, csvColumns);
+        downloadCsv(toCsv(csvRows, csvColumns), `${base}.csv`);
         return;
       }
       const svg = chartSvg();

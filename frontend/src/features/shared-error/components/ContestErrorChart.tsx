@@ -3,7 +3,7 @@ import { Axis, GlyphSeries, Grid, Tooltip, XYChart } from '@visx/xychart';
 import type { GlyphProps } from '@visx/xychart';
 import { useMemo } from 'react';
 import { DataTable, createDataTableColumnHelper } from '../../../components/ui';
-import type { CsvColumn } from '../lib/csv';
+import type { CsvColumn } from '../../../lib/csv';
 import { contestLabel, fmtSigned, isNum } from '../lib/format';
 import type { Blocs } from '../lib/verdict';
 import type { SharedErrorAnalysisDto } from '../types';

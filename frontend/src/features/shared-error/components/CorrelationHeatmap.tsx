@@ -1,7 +1,7 @@
 import { useId, useMemo, useState } from 'react';
 import { DataTable, createDataTableColumnHelper } from '../../../components/ui';
 import { correlationMatrix, correlationStep, type CorrelationMeasure, type MatrixCell } from '../lib/correlation-matrix';
-import type { CsvColumn } from '../lib/csv';
+import type { CsvColumn } from '../../../lib/csv';
 import { fmtNumber, fmtP, isNum } from '../lib/format';
 import { reasonFor } from '../lib/reasons';
 import type { FirmPairDto, SharedErrorAnalysisDto } from '../types';

@@ -2,7 +2,7 @@ import { Axis, GlyphSeries, Grid, Tooltip, XYChart } from '@visx/xychart';
 import type { GlyphProps } from '@visx/xychart';
 import { useMemo } from 'react';
 import { Alert, Card, DataTable, Stat, StatGroup, createDataTableColumnHelper } from '../../../components/ui';
-import type { CsvColumn } from '../lib/csv';
+import type { CsvColumn } from '../../../lib/csv';
 import { fmtHalfWidth, fmtNumber, fmtSigned, isNum } from '../lib/format';
 import type { AuditElection, AuditHistoryDto, HistoryContestDto } from '../types';
 import { ChartBox, CHART_COLOURS, Cell, Legend, LegendItem, ValueOr, chartTheme, useChartScales } from './chart-kit';

@@ -2,7 +2,7 @@ import { Axis, GlyphSeries, Grid, Tooltip, XYChart } from '@visx/xychart';
 import { useMemo } from 'react';
 import { DataTable, createDataTableColumnHelper } from '../../../components/ui';
 import { formatDate } from '../../../utils/format';
-import type { CsvColumn } from '../lib/csv';
+import type { CsvColumn } from '../../../lib/csv';
 import { describeDirection } from '../lib/verdict';
 import { electionShortLabel, fmtInterval, fmtSigned, isNum } from '../lib/format';
 import type { AuditElection, AuditHistoryDto } from '../types';

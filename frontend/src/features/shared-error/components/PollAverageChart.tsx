@@ -1,7 +1,7 @@
 import { Axis, GlyphSeries, Grid, Tooltip, XYChart } from '@visx/xychart';
 import { useMemo } from 'react';
 import { Card, DataTable, Stat, StatGroup, createDataTableColumnHelper } from '../../../components/ui';
-import type { CsvColumn } from '../lib/csv';
+import type { CsvColumn } from '../../../lib/csv';
 import { contestLabel, fmtHalfWidth, fmtNumber, fmtSigned, isNum } from '../lib/format';
 import { reasonFor } from '../lib/reasons';
 import type { Blocs } from '../lib/verdict';

@@ -1,7 +1,7 @@
 import { Axis, GlyphSeries, Grid, Tooltip, XYChart } from '@visx/xychart';
 import { useMemo } from 'react';
 import { DataTable, StatGroup, Stat, createDataTableColumnHelper } from '../../../components/ui';
-import type { CsvColumn } from '../lib/csv';
+import type { CsvColumn } from '../../../lib/csv';
 import { fmtNumber, fmtPEquals, fmtSigned, isNum } from '../lib/format';
 import { reasonFor } from '../lib/reasons';
 import type { QqPointDto, SharedErrorAnalysisDto } from '../types';

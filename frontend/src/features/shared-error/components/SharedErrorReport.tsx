@@ -1,7 +1,7 @@
 import { useId, type ReactNode } from 'react';
 import { Alert, LoadingState } from '../../../components/ui';
 import { describeError } from '../../../lib/api-client';
-import { safeFilename } from '../lib/csv';
+import { safeFilename } from '../../../lib/download';
 import type { Blocs } from '../lib/verdict';
 import { useSharedError } from '../api/get-shared-error';
 import { useUsedAuditPolls } from '../api/list-audit-polls';

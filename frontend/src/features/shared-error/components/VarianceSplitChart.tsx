@@ -1,7 +1,7 @@
 import { Axis, BarSeries, Grid, XYChart } from '@visx/xychart';
 import { useMemo } from 'react';
 import { DataTable, createDataTableColumnHelper } from '../../../components/ui';
-import type { CsvColumn } from '../lib/csv';
+import type { CsvColumn } from '../../../lib/csv';
 import { fmtNumber, fmtPercent, isNum } from '../lib/format';
 import { reasonFor } from '../lib/reasons';
 import type { SharedErrorAnalysisDto } from '../types';

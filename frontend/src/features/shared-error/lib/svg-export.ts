@@ -1,4 +1,4 @@
-import { downloadBlob } from './csv';
+import { downloadBlob } from '../../../lib/download';
 
 const STYLE_PROPERTIES = [
   'fill',
@@ -52,7 +52,7 @@ export function serializeSvg(svg: SVGSVGElement): string {
 }
 
 export function downloadSvg(svg: SVGSVGElement, filename: string): void {
-  downloadBlob(filename, new Blob([serializeSvg(svg)], { type: 'image/svg+xml;charset=utf-8' }));
+  downloadBlob(new Blob([serializeSvg(svg)], { type: 'image/svg+xml;charset=utf-8' }), filename);
 }
 
 /** Draws the serialised SVG on a canvas at twice its size and offers it as a PNG. */
@@ -80,7 +80,7 @@ export async function downloadPng(svg: SVGSVGElement, filename: string): Promise
     context.drawImage(image, 0, 0, canvas.width, canvas.height);
     const blob = await new Promise<Blob | null>((resolve) => canvas.toBlob(resolve, 'image/png'));
     if (!blob) throw new Error('The image could not be made.');
-    downloadBlob(filename, blob);
+    downloadBlob(blob, filename);
   } finally {
     URL.revokeObjectURL(url);
   }

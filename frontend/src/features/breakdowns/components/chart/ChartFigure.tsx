@@ -1,8 +1,8 @@
 import { useId, useRef, useState, type KeyboardEvent, type ReactNode } from 'react';
 import { Button } from '../../../../components/ui';
 import { cn } from '../../../../lib/cn';
-import type { CsvRow } from './csv';
-import { downloadCsv, downloadPng, downloadSvg, fileSlug } from './download';
+import { downloadCsv, recordsToCsv, type CsvRow } from '../../../../lib/csv';
+import { downloadPng, downloadSvg, fileSlug } from './download';
 import { useElementWidth } from './useElementWidth';
 
 export interface ChartRenderContext {
@@ -112,7 +112,7 @@ export function ChartFigure({ title, explanation, note, summary, points, table, 
               variant="secondary"
               size="sm"
               aria-label={`Download ${d.label} of ${title}`}
-              onClick={() => downloadCsv(d.rows, `${base}${d.label === 'CSV' ? '' : `-${fileSlug(d.label.replace(/csv/i, ''))}`}.csv`, d.columns)}
+              onClick={() => downloadCsv(recordsToCsv(d.rows, d.columns), `${base}${d.label === 'CSV' ? '' : `-${fileSlug(d.label.replace(/csv/i, ''))}`}.csv`)}
             >
               {d.label}
             </Button>

@@ -1,4 +1,4 @@
-import { toCsv, type CsvRow } from './csv';
+import { downloadBlob } from '../../../../lib/download';
 import { chartPalette } from './palette';
 
 /** A file name safe on every system: lower-case letters, digits and dashes. */
@@ -11,25 +11,6 @@ export function fileSlug(text: string): string {
       .replace(/^-+|-+$/g, '')
       .slice(0, 80) || 'chart'
   );
-}
-
-export function downloadBlob(blob: Blob, fileName: string): void {
-  const url = URL.createObjectURL(blob);
-  const link = document.createElement('a');
-  link.href = url;
-  link.download = fileName;
-  link.rel = 'noopener';
-  link.style.display = 'none';
-  document.body.append(link);
-  link.click();
-  link.remove();
-  // Give the browser time to start the download before the address is released.
-  setTimeout(() => URL.revokeObjectURL(url), 10_000);
-}
-
-export function downloadCsv(rows: readonly CsvRow[], fileName: string, columns?: readonly string[]): void {
-  // The byte-order mark makes spreadsheet programs read the file as UTF-8 (names, minus signs).
-  downloadBlob(new Blob(['\uFEFF', toCsv(rows, columns)], { type: 'text/csv;charset=utf-8' }), fileName);
 }
 
 const SVG_NS = 'http://www.w3.org/2000/svg';
