@@ -1,7 +1,7 @@
 import { useId, useRef, useState, type ReactNode } from 'react';
 import { Alert, Button } from '../../../components/ui';
 import { downloadCsv } from '../../../lib/csv';
-import { downloadPng, downloadSvg } from '../chart-export';
+import { downloadPng, downloadSvg } from '../../../lib/svg-export';
 import type { MethodAnchor } from '../method-catalogue';
 import { FormulaLink } from './FormulaLink';
 

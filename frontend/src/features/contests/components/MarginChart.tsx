@@ -5,7 +5,7 @@ import { Alert, Button, DataTable, createDataTableColumnHelper } from '../../../
 import { paths } from '../../../lib/paths';
 import { formatDate } from '../../../utils/format';
 import { downloadCsv, toCsv, type CsvColumn } from '../../../lib/csv';
-import { savePng, saveSvg } from '../download';
+import { downloadPng, downloadSvg } from '../../../lib/svg-export';
 import { formatSignedPoints } from '../format';
 import type { MarginPoint } from '../margins';
 
@@ -107,8 +107,8 @@ export function MarginChart({ contestKey, points, certified, electionDate, nameA
       return;
     }
     try {
-      if (kind === 'svg') saveSvg(node, `${base}.svg`);
-      else await savePng(node, `${base}.png`);
+      if (kind === 'svg') downloadSvg(node, `${base}.svg`);
+      else await downloadPng(node, `${base}.png`);
     } catch (error) {
       setSaveError(error instanceof Error ? error.message : 'The chart could not be saved.');
     }

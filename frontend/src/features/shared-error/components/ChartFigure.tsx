@@ -2,7 +2,7 @@ import { useRef, useState, type ReactNode } from 'react';
 import { Alert, Button, Card } from '../../../components/ui';
 import { downloadCsv, toCsv, type CsvColumn } from '../../../lib/csv';
 import { safeFilename } from '../../../lib/download';
-import { downloadPng, downloadSvg } from '../lib/svg-export';
+import { downloadPng, downloadSvg } from '../../../lib/svg-export';
 
 export interface ChartFigureProps<Row> {
   title: string;

@@ -1,4 +1,4 @@
-import { downloadBlob } from '../../../../lib/download';
+import { downloadSvgText, downloadSvgTextAsPng, standaloneSvg, svgFileText } from '../../../../lib/svg-export';
 import { chartPalette } from './palette';
 
 /** A file name safe on every system: lower-case letters, digits and dashes. */
@@ -19,25 +19,19 @@ const SVG_NS = 'http://www.w3.org/2000/svg';
 const TITLE_BAND = 28;
 
 /**
- * A standalone copy of a chart's SVG: explicit size, a white background, the title written above
- * the chart and kept as `<title>`, a font family, and colours already resolved to plain values by
- * the chart palette.
+ * A standalone copy of a chart's SVG (see `standaloneSvg`) with the title written in a band above
+ * the chart and kept as `<title>`, on the chart palette's white.
  */
 export function serializeChartSvg(svg: SVGSVGElement, title: string): { text: string; width: number; height: number } {
-  const width = Number(svg.getAttribute('width')) || svg.getBoundingClientRect().width || 640;
-  const chartHeight = Number(svg.getAttribute('height')) || svg.getBoundingClientRect().height || 320;
+  const { node: copy, width, height: chartHeight } = standaloneSvg(svg, { background: null });
   const height = chartHeight + TITLE_BAND;
   const palette = chartPalette();
-  const copy = svg.cloneNode(true) as SVGSVGElement;
   const chart = document.createElementNS(SVG_NS, 'g');
   chart.setAttribute('transform', `translate(0, ${TITLE_BAND})`);
   while (copy.firstChild) chart.append(copy.firstChild);
-  copy.setAttribute('xmlns', SVG_NS);
-  copy.setAttribute('width', String(width));
   copy.setAttribute('height', String(height));
   copy.setAttribute('viewBox', `0 0 ${width} ${height}`);
   copy.setAttribute('font-family', 'Work Sans, Helvetica, Arial, sans-serif');
-  copy.removeAttribute('class');
   const titleNode = document.createElementNS(SVG_NS, 'title');
   titleNode.textContent = title;
   const background = document.createElementNS(SVG_NS, 'rect');
@@ -52,35 +46,15 @@ export function serializeChartSvg(svg: SVGSVGElement, title: string): { text: st
   heading.setAttribute('fill', palette.text);
   heading.textContent = title;
   copy.append(titleNode, background, heading, chart);
-  const text = `<?xml version="1.0" encoding="UTF-8"?>\n${new XMLSerializer().serializeToString(copy)}`;
-  return { text, width, height };
+  return { text: svgFileText(copy), width, height };
 }
 
 export function downloadSvg(svg: SVGSVGElement, title: string, fileName: string): void {
-  const { text } = serializeChartSvg(svg, title);
-  downloadBlob(new Blob([text], { type: 'image/svg+xml;charset=utf-8' }), fileName);
+  downloadSvgText(serializeChartSvg(svg, title).text, fileName);
 }
 
-/** Draws the chart's SVG on a canvas at twice its size and saves it as PNG. */
+/** Draws the chart with its title on a canvas at twice its size and saves it as PNG. */
 export async function downloadPng(svg: SVGSVGElement, title: string, fileName: string): Promise<void> {
   const { text, width, height } = serializeChartSvg(svg, title);
-  const scale = 2;
-  const image = new Image();
-  const loaded = new Promise<void>((resolve, reject) => {
-    image.onload = () => resolve();
-    image.onerror = () => reject(new Error('The chart could not be drawn as an image.'));
-  });
-  image.src = `data:image/svg+xml;charset=utf-8,${encodeURIComponent(text)}`;
-  await loaded;
-  const canvas = document.createElement('canvas');
-  canvas.width = Math.round(width * scale);
-  canvas.height = Math.round(height * scale);
-  const context = canvas.getContext('2d');
-  if (!context) throw new Error('This browser cannot draw images.');
-  context.fillStyle = chartPalette().white;
-  context.fillRect(0, 0, canvas.width, canvas.height);
-  context.drawImage(image, 0, 0, canvas.width, canvas.height);
-  const blob = await new Promise<Blob | null>((resolve) => canvas.toBlob(resolve, 'image/png'));
-  if (!blob) throw new Error('The image could not be saved.');
-  downloadBlob(blob, fileName);
+  await downloadSvgTextAsPng(text, width, height, fileName);
 }
