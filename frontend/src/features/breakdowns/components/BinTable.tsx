@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import type { BreakdownBin } from '../api/types';
-import { formatInterval, formatNumber, formatSigned } from '../utils/format';
+import { formatInterval, formatNumber, formatSigned } from '../../../lib/format';
 
 export interface SimpleTableColumn<R> {
   header: string;

@@ -1,6 +1,6 @@
 import { useState, type ReactNode } from 'react';
 import type { Breakdown, BreakdownBin } from '../api/types';
-import { formatInterval, formatNumber, formatSigned } from '../utils/format';
+import { formatInterval, formatNumber, formatSigned } from '../../../lib/format';
 import { BinTable, binCsvRows } from './BinTable';
 import { ChartFigure } from './chart/ChartFigure';
 import { DotIntervalChart, dotItems, type DotSeries } from './chart/DotIntervalChart';

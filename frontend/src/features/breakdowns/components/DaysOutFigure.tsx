@@ -1,7 +1,7 @@
 import { Axis, GlyphSeries, Grid, XYChart } from '@visx/xychart';
 import { useMemo, useState } from 'react';
 import type { AuditBreakdownsResponse, BreakdownBin, DaysOutPoint } from '../api/types';
-import { formatInterval, formatNumber, formatSigned } from '../utils/format';
+import { formatInterval, formatNumber, formatSigned } from '../../../lib/format';
 import { BinTable, binCsvRows } from './BinTable';
 import { ChartFigure } from './chart/ChartFigure';
 import { ActiveRing, HorizontalRule, IntervalMarks, SegmentMarks, SvgLegend, chartTheme, glyphRenderer, paddedDomain } from './chart/marks';

@@ -1,5 +1,5 @@
 import type { ElectionBreakdown } from '../api/types';
-import { formatInterval, formatNumber, formatSigned } from '../utils/format';
+import { formatInterval, formatNumber, formatSigned } from '../../../lib/format';
 import { SimpleTable } from './BinTable';
 import { ChartFigure } from './chart/ChartFigure';
 import { DotIntervalChart, dotItems, type DotSeries } from './chart/DotIntervalChart';

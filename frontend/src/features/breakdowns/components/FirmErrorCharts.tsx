@@ -1,7 +1,7 @@
 import type { AuditPollDto } from '@veracast/shared-types';
 import { Axis, BarGroup, BarSeries, GlyphSeries, Grid, XYChart } from '@visx/xychart';
 import { useMemo } from 'react';
-import { formatNumber, formatPercent, formatSigned } from '../utils/format';
+import { formatNumber, formatPercent, formatSigned } from '../../../lib/format';
 import { absErrorHistogram, firmElectionRows, leanWords, type ElectionInfo, type FirmElectionRow, type HistogramBin } from '../utils/firm-summary';
 import { SimpleTable } from './BinTable';
 import { ChartFigure } from './chart/ChartFigure';

@@ -1,6 +1,6 @@
 import { Axis, GlyphSeries, Grid, LineSeries, XYChart } from '@visx/xychart';
 import type { AuditBreakdownsResponse, FunnelPoint, SampleSizePoint } from '../api/types';
-import { formatNumber } from '../utils/format';
+import { formatNumber } from '../../../lib/format';
 import { BinTable, SimpleTable, binCsvRows } from './BinTable';
 import { ChartFigure } from './chart/ChartFigure';
 import { ActiveRing, SvgLegend, chartTheme, glyphRenderer, paddedDomain } from './chart/marks';

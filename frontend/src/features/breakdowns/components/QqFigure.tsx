@@ -1,6 +1,6 @@
 import { Axis, GlyphSeries, Grid, XYChart } from '@visx/xychart';
 import type { QqPoint } from '../api/types';
-import { formatNumber, formatSigned } from '../utils/format';
+import { formatNumber, formatSigned } from '../../../lib/format';
 import { SimpleTable } from './BinTable';
 import { ChartFigure } from './chart/ChartFigure';
 import { ActiveRing, DataLine, SvgLegend, chartTheme, glyphRenderer, paddedDomain } from './chart/marks';

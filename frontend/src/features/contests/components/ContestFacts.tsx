@@ -1,7 +1,8 @@
 import { Stat, StatGroup } from '../../../components/ui';
 import { formatDate } from '../../../utils/format';
 import type { ContestDetail } from '../api/get-contest';
-import { formatInteger, formatPercent, formatSignedPoints } from '../format';
+import { formatInteger, formatPercent } from '../../../lib/format';
+import { formatSignedPoints } from '../format';
 
 function optionName(contest: ContestDetail, key: string | null) {
   return key ? (contest.options.find((o) => o.key === key)?.name ?? key) : null;

@@ -5,7 +5,8 @@ import { Button, DataTable, createDataTableColumnHelper, type DataTableColumn } 
 import { paths } from '../../../lib/paths';
 import { formatDate } from '../../../utils/format';
 import type { ContestPoll } from '../api/list-contest-polls';
-import { formatInteger, formatPercent, formatPoints, formatSignedPoints } from '../format';
+import { formatInteger, formatPercent, formatPoints } from '../../../lib/format';
+import { formatSignedPoints } from '../format';
 import { pollMargin } from '../margins';
 
 const column = createDataTableColumnHelper<ContestPoll>();

@@ -2,7 +2,7 @@ import { DISCLOSURE_ITEMS, DISCLOSURE_LABELS, type PollDto } from '@veracast/sha
 import { Link } from 'react-router-dom';
 import { DataTable, createDataTableColumnHelper, type DataTableColumn } from '../../../components/ui';
 import { paths } from '../../../lib/paths';
-import { formatPercent } from '../format';
+import { formatPercent } from '../../../lib/format';
 
 function Present({ present }: { present: boolean }) {
   return present ? (

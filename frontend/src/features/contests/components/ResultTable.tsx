@@ -2,7 +2,7 @@ import type { OptionDto } from '@veracast/shared-types';
 import { useMemo } from 'react';
 import { DataTable, createDataTableColumnHelper } from '../../../components/ui';
 import type { ContestDetail } from '../api/get-contest';
-import { formatInteger, formatPoints } from '../format';
+import { formatInteger, formatPoints } from '../../../lib/format';
 
 interface ResultRow extends OptionDto {
   role: 'A' | 'B' | '';

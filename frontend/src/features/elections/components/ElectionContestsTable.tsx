@@ -3,7 +3,8 @@ import { Link } from 'react-router-dom';
 import { DataTable, createDataTableColumnHelper } from '../../../components/ui';
 import { paths } from '../../../lib/paths';
 import { formatDate } from '../../../utils/format';
-import { formatFraction, formatInteger } from '../format';
+import { formatInteger } from '../../../lib/format';
+import { formatFraction } from '../format';
 
 export function certificationLabel(contest: Pick<ContestDto, 'status'>): string {
   return contest.status === 'certified' ? 'Certified' : contest.status === 'provisional' ? 'Provisional' : 'No result';

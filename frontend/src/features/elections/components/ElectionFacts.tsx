@@ -1,7 +1,8 @@
 import { Stat, StatGroup } from '../../../components/ui';
 import { formatDate } from '../../../utils/format';
 import type { ElectionDetail } from '../api/get-election';
-import { formatFraction, formatInteger } from '../format';
+import { formatInteger } from '../../../lib/format';
+import { formatFraction } from '../format';
 
 const ORIENTATION_SOURCE: Record<ElectionDetail['orientationSource'], string> = {
   set: 'set by a reviewer',

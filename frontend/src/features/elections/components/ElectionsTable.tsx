@@ -5,7 +5,7 @@ import { describeError } from '../../../lib/api-client';
 import { paths } from '../../../lib/paths';
 import { formatDate } from '../../../utils/format';
 import { useElections } from '../api/list-elections';
-import { formatInteger } from '../format';
+import { formatInteger } from '../../../lib/format';
 import { FictionalMarker } from './FictionalDataNotice';
 
 const column = createDataTableColumnHelper<ElectionDto>();

@@ -2,7 +2,7 @@ import { DISCLOSURE_ITEMS, DISCLOSURE_LABELS, type DisclosureItem } from '@verac
 import { useMemo } from 'react';
 import { DataTable, createDataTableColumnHelper } from '../../../components/ui';
 import type { PollsterDetail } from '../api/get-pollster';
-import { formatPercent } from '../format';
+import { formatPercent } from '../../../lib/format';
 
 interface ItemRow {
   item: DisclosureItem;

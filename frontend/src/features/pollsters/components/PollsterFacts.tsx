@@ -1,7 +1,7 @@
 import { SPONSOR_TYPE_LABELS } from '@veracast/shared-types';
 import { Stat, StatGroup } from '../../../components/ui';
 import type { PollsterDetail } from '../api/get-pollster';
-import { formatInteger } from '../format';
+import { formatInteger } from '../../../lib/format';
 
 export function PollsterFacts({ pollster }: { pollster: PollsterDetail }) {
   return (

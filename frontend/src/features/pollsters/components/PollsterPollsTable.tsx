@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { DataTable, createDataTableColumnHelper } from '../../../components/ui';
 import { paths } from '../../../lib/paths';
 import { formatDate } from '../../../utils/format';
-import { formatInteger, formatPercent } from '../format';
+import { formatInteger, formatPercent } from '../../../lib/format';
 
 const column = createDataTableColumnHelper<PollDto>();
 const columns = column.columns([

@@ -4,7 +4,7 @@ import { Alert, DataTable, LoadingState, createDataTableColumnHelper } from '../
 import { describeError } from '../../../lib/api-client';
 import { paths } from '../../../lib/paths';
 import { usePollsters } from '../api/list-pollsters';
-import { formatPercent } from '../format';
+import { formatPercent } from '../../../lib/format';
 
 const column = createDataTableColumnHelper<PollsterDto>();
 const columns = column.columns([

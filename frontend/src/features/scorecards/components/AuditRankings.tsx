@@ -3,7 +3,7 @@ import { Alert, Card, LoadingState, Stat, StatGroup, buttonClasses } from '../..
 import { describeError } from '../../../lib/api-client';
 import type { ScorecardFilters } from '../api/filters';
 import { scorecardsCsvHref, useScorecards } from '../api/get-scorecards';
-import { formatNumber, formatPercent } from '../utils/format';
+import { formatNumber, formatPercent } from '../../../lib/format';
 import { RankingCaution } from './RankingCaution';
 import { RANKING_COLUMN_NOTES, RankingTable } from './RankingTable';
 import { RankingFilters } from './RankingFilters';

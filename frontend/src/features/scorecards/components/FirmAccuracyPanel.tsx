@@ -17,7 +17,7 @@ import { useScorecards } from '../api/get-scorecards';
 import { useAuditList } from '../api/list-audits';
 import { useAuditPolls } from '../api/list-audit-polls';
 import type { PollsterProfile, ScorecardField, ScorecardItem } from '../api/types';
-import { formatInterval, formatNumber, formatPercent, formatRank, formatSigned } from '../utils/format';
+import { formatInterval, formatNumber, formatPercent, formatRank, formatSigned } from '../../../lib/format';
 import { FictionalDataLabel } from './FictionalDataLabel';
 import { IntervalBar, sharedDomain } from './IntervalBar';
 

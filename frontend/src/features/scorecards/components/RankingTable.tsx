@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { DataTable, createDataTableColumnHelper } from '../../../components/ui';
 import { paths } from '../../../lib/paths';
 import type { Interval, ScorecardItem } from '../api/types';
-import { formatInterval, formatNumber, formatPercent, formatRank, formatSigned } from '../utils/format';
+import { formatInterval, formatNumber, formatPercent, formatRank, formatSigned } from '../../../lib/format';
 import { IntervalBar, sharedDomain } from './IntervalBar';
 
 interface RankingScale {

@@ -1,4 +1,4 @@
-/** Number formats of the scorecard screens. Points carry a true minus sign; missing values are an em dash. */
+/** Number formats shared by the screens. Points carry a true minus sign; missing values are an em dash. */
 
 const MINUS = '\u2212';
 
@@ -36,4 +36,17 @@ export function formatInterval(interval: readonly [number, number] | null | unde
 export function formatRank(rank: number | null | undefined): string {
   if (rank === null || rank === undefined || !Number.isFinite(rank)) return '—';
   return Number.isInteger(rank) ? String(rank) : formatNumber(rank, 1);
+}
+
+const integer = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 0 });
+const oneDecimal = new Intl.NumberFormat('en-GB', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
+
+/** 1,234,567; an em dash for a missing value. */
+export function formatInteger(value: number | null | undefined): string {
+  return value === null || value === undefined || !Number.isFinite(value) ? '—' : integer.format(value);
+}
+
+/** A share in points with one decimal: "37.8"; an em dash for a missing value. */
+export function formatPoints(value: number | null | undefined): string {
+  return value === null || value === undefined || !Number.isFinite(value) ? '—' : oneDecimal.format(value);
 }
