@@ -10,6 +10,7 @@ export {
   type DataTableColumn,
   type DataTableFeatures,
 } from './DataTable';
+export { FictionalDataLabel } from './FictionalDataLabel';
 export { Field, Input, Select, Switch, Textarea } from './Field';
 export { LoadingState } from './LoadingState';
 export { PageHeader } from './PageHeader';

@@ -19,5 +19,4 @@ export { SETTING_HELP, UNDECIDED_LABELS } from './settings-text';
 export { AuditsTable } from './components/AuditsTable';
 export { AuditView, type AuditViewProps } from './components/AuditView';
 export { CreateAuditForm, type CreateAuditFormProps } from './components/CreateAuditForm';
-export { FictionalLabel } from './components/FictionalLabel';
 export { FormulaLink, MetricExplanation } from './components/FormulaLink';

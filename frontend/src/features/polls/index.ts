@@ -3,4 +3,3 @@ export { getPoll, pollKeySchema, pollQueryOptions, usePoll, type PollDetail, typ
 export { ContestResultFacts, PollFacts, PollSharesTable } from './components/PollFacts';
 export { PollView, type PollViewProps } from './components/PollView';
 export { PollMetricsTable, type PollMetricsTableProps } from './components/PollMetricsTable';
-export { FictionalLabel as PollFictionalLabel } from './components/FictionalLabel';

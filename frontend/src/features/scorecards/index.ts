@@ -14,7 +14,6 @@ export {
 export { scorecardKeys } from './api/keys';
 export type { AuditListItem, Interval, PollsterProfile, ScorecardField, ScorecardItem, ScorecardsResponse } from './api/types';
 export { AuditRankings, type AuditRankingsProps } from './components/AuditRankings';
-export { FictionalDataLabel } from './components/FictionalDataLabel';
 export { FirmAccuracyPanel, type FirmAccuracyPanelProps, type FirmChartsData } from './components/FirmAccuracyPanel';
 export { IntervalBar, intervalBarX, sharedDomain, type IntervalBarProps } from './components/IntervalBar';
 export { RankingCaution } from './components/RankingCaution';

@@ -12,7 +12,6 @@ export {
 export { listUsedAuditPolls, usedAuditPollsQueryOptions, useUsedAuditPolls } from './api/list-audit-polls';
 export { auditHistoryQueryOptions, getAuditHistory, useAuditHistory } from './api/get-audit-history';
 export { AuditHistoryReport } from './components/AuditHistoryReport';
-export { FictionalLabel } from './components/FictionalLabel';
 export { SharedErrorChooser, type SharedErrorChooserProps } from './components/SharedErrorChooser';
 export { SharedErrorReport, type SharedErrorReportProps } from './components/SharedErrorReport';
 export { sharedMissVerdict, describeDirection, firmTypicalErrors, type Blocs, type SharedMissVerdict } from './lib/verdict';

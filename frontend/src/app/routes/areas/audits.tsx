@@ -2,12 +2,11 @@ import type { QueryClient } from '@tanstack/react-query';
 import { roleAtLeast, UNDECIDED_TREATMENTS, type UndecidedTreatment } from '@veracast/shared-types';
 import type { LoaderFunctionArgs, RouteObject } from 'react-router-dom';
 import { useNavigate, useParams, useSearchParams } from 'react-router-dom';
-import { Alert, Card, LinkButton, LoadingState, PageHeader } from '../../../components/ui';
+import { Alert, Card, FictionalDataLabel, LinkButton, LoadingState, PageHeader } from '../../../components/ui';
 import {
   AuditsTable,
   AuditView,
   CreateAuditForm,
-  FictionalLabel,
   MetricExplanation,
   auditIdSchema,
   auditPollsQueryOptions,
@@ -88,7 +87,7 @@ function AuditPage({ id }: { id: number }) {
       <PageHeader
         title={audit.name}
         description={`Audit ${audit.id}, computed ${formatDateTime(audit.createdAt)} over ${audit.elections.length} ${audit.elections.length === 1 ? 'election' : 'elections'}.`}
-        actions={audit.fictional ? <FictionalLabel /> : undefined}
+        actions={audit.fictional ? <FictionalDataLabel /> : undefined}
       />
       <AuditView audit={audit} canRerun={canRerun} />
     </div>

@@ -2,11 +2,10 @@ import type { QueryClient } from '@tanstack/react-query';
 import type { AuditDto } from '@veracast/shared-types';
 import type { ReactNode } from 'react';
 import { useParams, useSearchParams, type LoaderFunctionArgs, type RouteObject } from 'react-router-dom';
-import { Alert, LinkButton, LoadingState, PageHeader } from '../../../components/ui';
+import { Alert, FictionalDataLabel, LinkButton, LoadingState, PageHeader } from '../../../components/ui';
 import { AuditBreakdowns, breakdownsQueryOptions } from '../../../features/breakdowns';
 import {
   AuditRankings,
-  FictionalDataLabel,
   auditIdSchema,
   auditQueryOptions,
   scorecardFiltersFromSearch,

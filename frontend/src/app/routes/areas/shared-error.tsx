@@ -1,10 +1,9 @@
 import type { QueryClient } from '@tanstack/react-query';
 import type { AuditDto } from '@veracast/shared-types';
 import { Link, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs, type RouteObject } from 'react-router-dom';
-import { Alert, LinkButton, LoadingState, PageHeader, Select } from '../../../components/ui';
+import { Alert, FictionalDataLabel, LinkButton, LoadingState, PageHeader, Select } from '../../../components/ui';
 import {
   AuditHistoryReport,
-  FictionalLabel,
   SharedErrorChooser,
   SharedErrorReport,
   auditHistoryQueryOptions,
@@ -33,7 +32,7 @@ function parseAnalysisParams(params: Record<string, string | undefined>) {
 function AuditNotice({ audit }: { audit: AuditDto }) {
   return (
     <div className="mb-6 space-y-3">
-      {audit.fictional && <FictionalLabel />}
+      {audit.fictional && <FictionalDataLabel />}
       {audit.outOfDate && (
         <Alert tone="caution" title="This audit is out of date">
           The archive changed after the audit was computed. The numbers below are the audit’s own and do not move; an analyst can run a new audit on

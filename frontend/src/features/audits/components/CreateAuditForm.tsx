@@ -2,7 +2,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { UNDECIDED_TREATMENTS, type AuditDto, type ElectionDto } from '@veracast/shared-types';
 import { useId, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
-import { Alert, Button, Input, LoadingState, Select } from '../../../components/ui';
+import { Alert, Button, FictionalDataLabel, Input, LoadingState, Select } from '../../../components/ui';
 import { describeError } from '../../../lib/api-client';
 import { formatDate } from '../../../utils/format';
 import { createAuditInputSchema, useCreateAudit } from '../api/create-audit';
@@ -10,7 +10,6 @@ import { useElectionChoices } from '../api/list-election-choices';
 import { formatCount } from '../format';
 import { METHOD_ANCHORS } from '../method-catalogue';
 import { SETTING_HELP, UNDECIDED_LABELS } from '../settings-text';
-import { FictionalLabel } from './FictionalLabel';
 import { FormulaLink } from './FormulaLink';
 
 function plural(count: number, noun: string): string {
@@ -68,7 +67,7 @@ function ElectionChoices({
                   {formatDate(e.date)} · {plural(e.contestCount, 'contest')} · {plural(e.pollCount, 'poll')}
                   {e.certifiedCount < e.contestCount && ` · ${formatCount(e.contestCount - e.certifiedCount)} without a certified result`}
                 </span>
-                {e.fictional && <FictionalLabel className="ml-2 align-middle text-xs" />}
+                {e.fictional && <FictionalDataLabel className="ml-2 align-middle text-xs" />}
               </span>
             </label>
           </li>

@@ -1,7 +1,7 @@
 import type { PublicNote } from '@veracast/shared-types';
 import { formatDate } from '../../../utils/format';
-import { FictionalNote } from './FictionalNote';
 import { NoteHtml } from './NoteHtml';
+import { FictionalDataLabel } from '../../../components/ui';
 
 /** The public page of a published note: no app shell, readable signed out. */
 export function PublicNoteView({ note }: { note: PublicNote }) {
@@ -15,7 +15,7 @@ export function PublicNoteView({ note }: { note: PublicNote }) {
           Published {formatDate(note.publishedAt)} · version {note.version}
           {lastCorrection && ` · corrected ${formatDate(lastCorrection.date)}`}
         </p>
-        {note.fictional && <FictionalNote />}
+        {note.fictional && <FictionalDataLabel />}
         <p>
           <a href={note.pdfPath} className="text-sm font-medium text-accent-700 underline" download>
             Download as PDF

@@ -1,9 +1,8 @@
 import type { UndecidedTreatment } from '@veracast/shared-types';
 import type { ReactNode } from 'react';
-import { Alert, Card, LoadingState, PageHeader } from '../../../components/ui';
+import { Alert, Card, FictionalDataLabel, LoadingState, PageHeader } from '../../../components/ui';
 import { describeError, isApiError } from '../../../lib/api-client';
 import { usePoll } from '../api/get-poll';
-import { FictionalLabel } from './FictionalLabel';
 import { ContestResultFacts, PollFacts, PollSharesTable } from './PollFacts';
 import { PollMetricsTable } from './PollMetricsTable';
 
@@ -41,7 +40,7 @@ export function PollView({ pollKey, highlight, explain }: PollViewProps) {
           </>
         }
         description={`${poll.contest.electionName}. A poll measures opinion during its fieldwork; it is not a forecast.`}
-        actions={poll.fictional || poll.contest.fictional ? <FictionalLabel /> : undefined}
+        actions={poll.fictional || poll.contest.fictional ? <FictionalDataLabel /> : undefined}
       />
       <div className="grid gap-6 lg:grid-cols-2">
         <Card title="What the poll published">

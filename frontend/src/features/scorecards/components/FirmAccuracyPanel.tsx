@@ -7,7 +7,7 @@ import {
 } from '@veracast/shared-types';
 import { useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { Alert, Card, LoadingState, Select, Stat, StatGroup } from '../../../components/ui';
+import { Alert, Card, FictionalDataLabel, LoadingState, Select, Stat, StatGroup } from '../../../components/ui';
 import { describeError } from '../../../lib/api-client';
 import { paths } from '../../../lib/paths';
 import { formatDate } from '../../../utils/format';
@@ -18,7 +18,6 @@ import { useAuditList } from '../api/list-audits';
 import { useAuditPolls } from '../api/list-audit-polls';
 import type { PollsterProfile, ScorecardField, ScorecardItem } from '../api/types';
 import { formatInterval, formatNumber, formatPercent, formatRank, formatSigned } from '../../../lib/format';
-import { FictionalDataLabel } from './FictionalDataLabel';
 import { IntervalBar, sharedDomain } from './IntervalBar';
 
 /** What a chart of the firm's errors needs; handed to `renderCharts`. */

@@ -1,11 +1,10 @@
 import { Link } from 'react-router-dom';
-import { Alert, Card, LoadingState, Select } from '../../../components/ui';
+import { Alert, Card, FictionalDataLabel, LoadingState, Select } from '../../../components/ui';
 import { describeError } from '../../../lib/api-client';
 import { paths } from '../../../lib/paths';
 import { formatDate, formatDateTime } from '../../../utils/format';
 import { useAudit } from '../api/get-audit';
 import { useAuditList } from '../api/list-audits';
-import { FictionalLabel } from './FictionalLabel';
 
 const linkClass = 'font-medium text-accent-700 underline hover:text-accent-900';
 
@@ -57,7 +56,7 @@ export function SharedErrorChooser({ auditId, onAuditChange }: SharedErrorChoose
           <Alert tone="danger">{describeError(audit.error)}</Alert>
         ) : (
           <div className="space-y-4">
-            {audit.data.fictional && <FictionalLabel />}
+            {audit.data.fictional && <FictionalDataLabel />}
             {audit.data.outOfDate && (
               <Alert tone="caution" title="This audit is out of date">
                 The data changed after it was computed. Its numbers are still those it published; a new audit would use the current data.

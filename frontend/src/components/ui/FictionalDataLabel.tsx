@@ -1,7 +1,7 @@
-import { cn } from '../../../lib/cn';
+import { cn } from '../../lib/cn';
 
-/** The visible mark on anything computed from the fictional demo scenario. */
-export function FictionalLabel({ className }: { className?: string }) {
+/** The visible mark on anything that comes from, or was computed from, the fictional demo scenario. */
+export function FictionalDataLabel({ className }: { className?: string }) {
   return (
     <span
       className={cn(

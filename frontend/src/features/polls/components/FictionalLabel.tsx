@@ -1,9 +1,0 @@
-/** The visible mark on anything from the fictional demo scenario. */
-export function FictionalLabel() {
-  return (
-    <span className="inline-flex items-center gap-1.5 rounded-md border border-caution-200 bg-caution-50 px-2 py-0.5 text-sm font-medium text-caution-900">
-      <span aria-hidden="true">◇</span>
-      Fictional demo data
-    </span>
-  );
-}
