@@ -1,4 +1,5 @@
-import { useId, useRef, useState, type ReactNode } from 'react';
+import { useId, type ReactNode } from 'react';
+import { useChartExport } from '../../../components/charts';
 import { Alert, Button } from '../../../components/ui';
 import { downloadCsv } from '../../../lib/csv';
 import { downloadPng, downloadSvg } from '../../../lib/svg-export';
@@ -28,23 +29,7 @@ export interface ChartFrameProps {
  */
 export function ChartFrame({ title, explanation, formulaAnchor, filename, csv, children, table, footnote }: ChartFrameProps) {
   const headingId = useId();
-  const chartRef = useRef<HTMLDivElement>(null);
-  const [failure, setFailure] = useState<string | null>(null);
-
-  function chartSvg(): SVGSVGElement | null {
-    const svg = chartRef.current?.querySelector('svg');
-    if (!svg) setFailure('The chart is not drawn yet; try again in a moment.');
-    return svg ?? null;
-  }
-
-  async function run(action: () => void | Promise<void>) {
-    setFailure(null);
-    try {
-      await action();
-    } catch (error) {
-      setFailure(error instanceof Error ? error.message : 'The download failed.');
-    }
-  }
+  const { ref: chartRef, failure, run, withSvg } = useChartExport({ missingMessage: 'The chart is not drawn yet; try again in a moment.' });
 
   return (
     <section aria-labelledby={headingId} className="rounded-lg border border-ink-200 bg-white shadow-sm">
@@ -64,14 +49,14 @@ export function ChartFrame({ title, explanation, formulaAnchor, filename, csv, c
           <Button
             variant="secondary"
             size="sm"
-            onClick={() => void run(() => { const svg = chartSvg(); if (svg) downloadSvg(svg, `${filename}.svg`); })}
+            onClick={() => void withSvg((svg) => downloadSvg(svg, `${filename}.svg`))}
           >
             SVG
           </Button>
           <Button
             variant="secondary"
             size="sm"
-            onClick={() => void run(async () => { const svg = chartSvg(); if (svg) await downloadPng(svg, `${filename}.png`); })}
+            onClick={() => void withSvg((svg) => downloadPng(svg, `${filename}.png`))}
           >
             PNG
           </Button>

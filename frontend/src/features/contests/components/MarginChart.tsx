@@ -1,6 +1,7 @@
 import { Axis, GlyphSeries, Grid, LineSeries, Tooltip, XYChart, buildChartTheme } from '@visx/xychart';
-import { useId, useMemo, useRef, useState } from 'react';
+import { useId, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
+import { useChartExport } from '../../../components/charts';
 import { Alert, Button, DataTable, createDataTableColumnHelper } from '../../../components/ui';
 import { paths } from '../../../lib/paths';
 import { formatDate } from '../../../utils/format';
@@ -82,8 +83,10 @@ export interface MarginChartProps {
  */
 export function MarginChart({ contestKey, points, certified, electionDate, nameA, nameB }: MarginChartProps) {
   const [view, setView] = useState<'chart' | 'table'>('chart');
-  const [saveError, setSaveError] = useState<string | null>(null);
-  const frame = useRef<HTMLDivElement>(null);
+  const { ref: frame, failure: saveError, run, withSvg } = useChartExport({
+    missingMessage: 'Show the chart first, then save it.',
+    fallbackMessage: 'The chart could not be saved.',
+  });
   const descriptionId = useId();
   const theme = useMemo(chartTheme, []);
 
@@ -96,23 +99,8 @@ export function MarginChart({ contestKey, points, certified, electionDate, nameA
     ];
   }, [certified, points, electionDate]);
 
-  const svg = () => frame.current?.querySelector('svg') ?? null;
   const base = `${contestKey}-margins`;
-
-  async function save(kind: 'svg' | 'png') {
-    setSaveError(null);
-    const node = svg();
-    if (!node) {
-      setSaveError('Show the chart first, then save it.');
-      return;
-    }
-    try {
-      if (kind === 'svg') downloadSvg(node, `${base}.svg`);
-      else await downloadPng(node, `${base}.png`);
-    } catch (error) {
-      setSaveError(error instanceof Error ? error.message : 'The chart could not be saved.');
-    }
-  }
+  const save = (kind: 'svg' | 'png') => withSvg((node) => (kind === 'svg' ? downloadSvg(node, `${base}.svg`) : downloadPng(node, `${base}.png`)));
 
   if (points.length === 0) {
     return <p className="text-ink-600">No poll of this contest has shares for both {nameA} and {nameB}, so there is nothing to plot.</p>;
@@ -142,7 +130,7 @@ export function MarginChart({ contestKey, points, certified, electionDate, nameA
         <Button size="sm" variant="ghost" onClick={() => void save('png')} disabled={view !== 'chart'}>
           Save chart as PNG
         </Button>
-        <Button size="sm" variant="ghost" onClick={() => downloadCsv(toCsv(points, CSV_COLUMNS), `${base}.csv`)}>
+        <Button size="sm" variant="ghost" onClick={() => void run(() => downloadCsv(toCsv(points, CSV_COLUMNS), `${base}.csv`))}>
           Download data (CSV)
         </Button>
       </div>

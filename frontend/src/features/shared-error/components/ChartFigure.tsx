@@ -1,4 +1,5 @@
-import { useRef, useState, type ReactNode } from 'react';
+import type { ReactNode } from 'react';
+import { useChartExport } from '../../../components/charts';
 import { Alert, Button, Card } from '../../../components/ui';
 import { downloadCsv, toCsv, type CsvColumn } from '../../../lib/csv';
 import { safeFilename } from '../../../lib/download';
@@ -44,29 +45,12 @@ export function ChartFigure<Row>({
   headingLevel = 3,
   controls,
 }: ChartFigureProps<Row>) {
-  const chartRef = useRef<HTMLDivElement>(null);
-  const [failure, setFailure] = useState<string | null>(null);
+  const { ref: chartRef, failure, run, withSvg } = useChartExport();
   const base = safeFilename(filename);
 
-  function chartSvg(): SVGSVGElement | null {
-    const svg = chartRef.current?.querySelector('svg[data-chart-svg], svg');
-    return svg instanceof SVGSVGElement ? svg : null;
-  }
-
-  async function download(kind: 'svg' | 'png' | 'csv') {
-    setFailure(null);
-    try {
-      if (kind === 'csv') {
-        downloadCsv(toCsv(csvRows, csvColumns), `${base}.csv`);
-        return;
-      }
-      const svg = chartSvg();
-      if (!svg) throw new Error('The chart is not drawn yet.');
-      if (kind === 'svg') downloadSvg(svg, `${base}.svg`);
-      else await downloadPng(svg, `${base}.png`);
-    } catch (error) {
-      setFailure(error instanceof Error ? error.message : 'The download failed.');
-    }
+  function download(kind: 'svg' | 'png' | 'csv') {
+    if (kind === 'csv') return run(() => downloadCsv(toCsv(csvRows, csvColumns), `${base}.csv`));
+    return withSvg((svg) => (kind === 'svg' ? downloadSvg(svg, `${base}.svg`) : downloadPng(svg, `${base}.png`)));
   }
 
   const hasChart = chart !== null;

@@ -1,4 +1,5 @@
-import { useId, useRef, useState, type KeyboardEvent, type ReactNode } from 'react';
+import { useId, useState, type KeyboardEvent, type ReactNode } from 'react';
+import { useChartExport } from '../../../../components/charts';
 import { Button } from '../../../../components/ui';
 import { cn } from '../../../../lib/cn';
 import { downloadCsv, recordsToCsv, type CsvRow } from '../../../../lib/csv';
@@ -50,27 +51,13 @@ export function ChartFigure({ title, explanation, note, summary, points, table, 
   const headingId = useId();
   const explanationId = useId();
   const [measureRef, width] = useElementWidth<HTMLDivElement>();
-  const chartRef = useRef<HTMLDivElement | null>(null);
+  const { ref: chartRef, failure: problem, withSvg } = useChartExport({ missingMessage: null, fallbackMessage: 'The image could not be saved.' });
   const [active, setActive] = useState<number | null>(null);
-  const [problem, setProblem] = useState<string | null>(null);
   const base = fileSlug(fileName ?? title);
   const activeIndex = active !== null && active < points.length ? active : null;
 
-  function svgNode(): SVGSVGElement | null {
-    return chartRef.current?.querySelector('svg') ?? null;
-  }
-
-  function saveSvg() {
-    const svg = svgNode();
-    if (svg) downloadSvg(svg, title, `${base}.svg`);
-  }
-
-  function savePng() {
-    const svg = svgNode();
-    if (!svg) return;
-    setProblem(null);
-    downloadPng(svg, title, `${base}.png`).catch((error: unknown) => setProblem(error instanceof Error ? error.message : 'The image could not be saved.'));
-  }
+  const saveSvg = () => void withSvg((svg) => downloadSvg(svg, title, `${base}.svg`));
+  const savePng = () => void withSvg((svg) => downloadPng(svg, title, `${base}.png`));
 
   function onKeyDown(event: KeyboardEvent<HTMLDivElement>) {
     if (points.length === 0) return;

@@ -1,0 +1,1 @@
+export { useChartExport, type ChartExport, type ChartExportOptions } from './useChartExport';
