@@ -1,5 +1,7 @@
 /** Number formats of the audit screens. A missing value is an em dash, never 0 or NaN. */
 
+import { formatNumber, formatSigned } from '../../lib/format';
+
 const MINUS = '\u2212';
 
 function finite(value: number | null | undefined): value is number {
@@ -8,16 +10,12 @@ function finite(value: number | null | undefined): value is number {
 
 /** Points with a fixed number of decimals: `3.80`; negative values carry a true minus sign. */
 export function formatPoints(value: number | null | undefined, digits = 2): string {
-  if (!finite(value)) return '—';
-  const text = Math.abs(value).toFixed(digits);
-  return value < 0 && Number(text) !== 0 ? `${MINUS}${text}` : text;
+  return formatNumber(value, digits);
 }
 
 /** Signed points: `+1.10`, `−0.50`, `0.00`. */
 export function formatSignedPoints(value: number | null | undefined, digits = 2): string {
-  if (!finite(value)) return '—';
-  const text = formatPoints(value, digits);
-  return value > 0 && Number(Math.abs(value).toFixed(digits)) !== 0 ? `+${text}` : text;
+  return formatSigned(value, digits);
 }
 
 /** A rate in [0, 1] as a percentage: `81.5%`. */
