@@ -64,52 +64,102 @@ export function pairwiseFirmCorrelations(
   const minCommon = options.minCommon ?? 5;
   requireInteger('options.minCommon', minCommon, 3);
 
-  // contest → firm → averaged error
-  const byContest = new Map<string, Map<string, number>>();
-  for (const [contestKey, rows] of groupBy(polls, (p) => p.contestKey)) {
-    const perFirm = new Map<string, number>();
+  const byFirm = new Map<string, FirmContests>();
+  // contest → firm → averaged error; contests and each contest's firms in key order.
+  const contests: ContestErrors[] = [];
+  for (const rows of groupBy(polls, (p) => p.contestKey).values()) {
+    const firms: string[] = [];
+    const errors: number[] = [];
     for (const [firm, firmRows] of groupBy(rows, (r) => r.firm)) {
-      perFirm.set(firm, meanOf(firmRows.map((r) => r.error)));
+      firms.push(firm);
+      errors.push(meanOf(firmRows.map((r) => r.error)));
     }
-    byContest.set(contestKey, perFirm);
+    contests.push({ errors });
+    firms.forEach((firm, position) => {
+      let entry = byFirm.get(firm);
+      if (!entry) byFirm.set(firm, (entry = { contests: [], positions: [], errors: [] }));
+      entry.contests.push(contests.length - 1);
+      entry.positions.push(position);
+      entry.errors.push(errors[position] as number);
+    });
   }
-  const firms = [...new Set(polls.map((p) => p.firm))].sort(compareKeys);
+  const firms = [...byFirm.keys()].sort(compareKeys);
   if (firms.length < 2) return [];
 
   const out: FirmPairCorrelation[] = [];
   for (let i = 0; i < firms.length; i++) {
     for (let j = i + 1; j < firms.length; j++) {
-      out.push(analysePair(firms[i] as string, firms[j] as string, byContest, minCommon));
+      const a = firms[i] as string;
+      const b = firms[j] as string;
+      out.push(analysePair(a, b, byFirm.get(a) as FirmContests, byFirm.get(b) as FirmContests, contests, minCommon));
     }
   }
   return out;
 }
 
+/** One contest: the averaged error of each firm that polled it, firms in key order. */
+interface ContestErrors {
+  readonly errors: readonly number[];
+}
+
+/** One firm's contests (indexes into the contest list, ascending), its place in each and its error. */
+interface FirmContests {
+  readonly contests: number[];
+  readonly positions: number[];
+  readonly errors: number[];
+}
+
+/**
+ * Mean of `xs` without the entries at `skipA` and `skipB`, summed in order exactly as `meanOf`
+ * (simple-statistics' compensated sum) would sum the remaining entries, so the result is the same
+ * to the last bit as building that array and calling `meanOf`.
+ */
+function meanWithout(xs: readonly number[], skipA: number, skipB: number): number {
+  let started = false;
+  let sum = 0;
+  let correction = 0;
+  let count = 0;
+  for (let i = 0; i < xs.length; i++) {
+    if (i === skipA || i === skipB) continue;
+    const x = xs[i] as number;
+    count++;
+    if (!started) {
+      sum = x;
+      started = true;
+      continue;
+    }
+    const transition = sum + x;
+    if (Math.abs(sum) >= Math.abs(x)) correction += sum - transition + x;
+    else correction += x - transition + sum;
+    sum = transition;
+  }
+  return (sum + correction) / count;
+}
+
 function analysePair(
   a: string,
   b: string,
-  byContest: ReadonlyMap<string, ReadonlyMap<string, number>>,
+  fa: FirmContests,
+  fb: FirmContests,
+  contests: readonly ContestErrors[],
   minCommon: number,
 ): FirmPairCorrelation {
-  const xa: number[] = [];
-  const xb: number[] = [];
-  const adjA: number[] = [];
-  const adjB: number[] = [];
-  for (const perFirm of byContest.values()) {
-    const ea = perFirm.get(a);
-    const eb = perFirm.get(b);
-    if (ea === undefined || eb === undefined) continue;
-    xa.push(ea);
-    xb.push(eb);
-    const others = [...perFirm.entries()].filter(([f]) => f !== a && f !== b).map(([, e]) => e);
-    if (others.length > 0) {
-      const bias = meanOf(others);
-      adjA.push(ea - bias);
-      adjB.push(eb - bias);
+  // Common contests in contest order: a merge of the two firms' ascending contest lists.
+  let n = 0;
+  let nAdjusted = 0;
+  for (let i = 0, j = 0; i < fa.contests.length && j < fb.contests.length; ) {
+    const ca = fa.contests[i] as number;
+    const cb = fb.contests[j] as number;
+    if (ca < cb) i++;
+    else if (cb < ca) j++;
+    else {
+      n++;
+      if ((contests[ca] as ContestErrors).errors.length > 2) nAdjusted++;
+      i++;
+      j++;
     }
   }
-  const n = xa.length;
-  const base = { a, b, n, nAdjusted: adjA.length };
+  const base = { a, b, n, nAdjusted };
   if (n < minCommon) {
     return {
       ...base,
@@ -122,6 +172,34 @@ function analysePair(
       insufficient: true,
       note: `only ${n} common contest${n === 1 ? '' : 's'}; at least ${minCommon} are needed`,
     };
+  }
+  const xa: number[] = new Array<number>(n);
+  const xb: number[] = new Array<number>(n);
+  const adjA: number[] = new Array<number>(nAdjusted);
+  const adjB: number[] = new Array<number>(nAdjusted);
+  let k = 0;
+  let m = 0;
+  for (let i = 0, j = 0; i < fa.contests.length && j < fb.contests.length; ) {
+    const ca = fa.contests[i] as number;
+    const cb = fb.contests[j] as number;
+    if (ca < cb) i++;
+    else if (cb < ca) j++;
+    else {
+      const ea = fa.errors[i] as number;
+      const eb = fb.errors[j] as number;
+      xa[k] = ea;
+      xb[k] = eb;
+      k++;
+      const errors = (contests[ca] as ContestErrors).errors;
+      if (errors.length > 2) {
+        const bias = meanWithout(errors, fa.positions[i] as number, fb.positions[j] as number);
+        adjA[m] = ea - bias;
+        adjB[m] = eb - bias;
+        m++;
+      }
+      i++;
+      j++;
+    }
   }
   const notes: string[] = [];
   let raw: { r: number; p: number; rho: number; rhoP: number } | null = null;
