@@ -3,7 +3,7 @@ import { computePollMetrics } from '../../analysis/metrics';
 import { MetricInputError } from '../../analysis/errors';
 import { clusteredMean, computeScorecards, type ScorecardPoll } from '../../analysis/ranking';
 import { computeSharedError, type SharedErrorPoll } from '../../analysis/shared-error';
-import { disclosureOf, orientationOf, type ContestRow, type ElectionRow } from '../../queries/archive';
+import { disclosureOf, orientationOf, type ContestRow, type ElectionRow, type PollRow } from '../../queries/archive';
 import type { AuditInputs } from './inputs';
 
 const mean = (xs: readonly number[]) => (xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : null);
@@ -12,80 +12,127 @@ const rate = (xs: readonly (boolean | null)[]) => {
   return known.length ? known.filter(Boolean).length / known.length : null;
 };
 
+/** Options of {@link computeAuditPolls}. */
+export interface AuditPollOptions {
+  /**
+   * Also compute each poll's `detail` (the rest of the per-poll metrics, for a poll's own page).
+   * Default true; audits store no detail (their poll rows keep only the AuditPollDto fields).
+   */
+  detail?: boolean;
+}
+
+/** What every poll of one contest shares: keys, window, and the contest as the metrics read it. */
+interface ContestContext {
+  contestKey: string;
+  electionKey: string;
+  electionDate: string;
+  windowStart: string;
+  hasResult: boolean;
+  metricsContest: Parameters<typeof computePollMetrics>[1];
+}
+
 /** Every poll of the audit's elections with its metrics and the inWindow / isFinal flags. */
-export function computeAuditPolls(inputs: AuditInputs, settings: AuditSettings): AuditPollDto[] {
+export function computeAuditPolls(inputs: AuditInputs, settings: AuditSettings, options: AuditPollOptions = {}): AuditPollDto[] {
+  const withDetail = options.detail ?? true;
   const electionById = new Map(inputs.elections.map((e) => [e.id, e]));
-  const contestById = new Map(inputs.contests.map((c) => [c.id, c]));
   const orientation = new Map(inputs.elections.map((e) => [e.id, orientationOf(e, inputs.contests)]));
-  const items: AuditPollDto[] = [];
-  for (const p of inputs.polls) {
-    const contest = contestById.get(p.contestId)!;
-    const election = electionById.get(contest.electionId)!;
+  const windowStart = new Map(inputs.elections.map((e) => [e.id, shiftDays(e.date, -settings.windowDays)]));
+  const contexts = new Map<number, ContestContext>();
+  for (const contest of inputs.contests) {
+    const election = electionById.get(contest.electionId);
+    if (!election) continue;
     const o = orientation.get(election.id)!;
-    const windowStart = shiftDays(election.date, -settings.windowDays);
-    const base = {
-      pollKey: p.key, contestKey: contest.key, electionKey: election.key, pollsterId: p.pollsterId, pollster: p.pollster,
-      inWindow: p.fieldworkEnd >= windowStart && p.fieldworkEnd <= election.date, isFinal: false, fieldworkEnd: p.fieldworkEnd,
-      sampleSize: p.sampleSize, population: p.population, mode: p.mode, sponsorType: p.sponsorType, disclosure: disclosureOf(p).completeness,
-    };
-    const empty = {
-      refA: null, refB: null, refBasis: null, marginError: null, absMarginError: null, lean: null, mosteller3: null, mosteller5: null, mtkA: null,
-      mtkSe: null, mtkP: null, aeB: null, aeBw: null, winnerCalled: null, shareCovered: null, marginCovered: null, daysOut: null, daysOutEnd: null,
-      undecidedShare: null, twoPartyShareError: null, nEff: null, pollA: null, pollB: null, resultA: null, resultB: null, notes: [] as string[], detail: null,
-    };
-    if (!contest.options.some((x) => (x.votes ?? 0) > 0)) {
-      items.push({ ...base, ...empty, error: `contest ${contest.key} has no result yet` });
+    contexts.set(contest.id, {
+      contestKey: contest.key, electionKey: election.key, electionDate: election.date, windowStart: windowStart.get(election.id)!,
+      hasResult: contest.options.some((x) => (x.votes ?? 0) > 0),
+      metricsContest: {
+        options: contest.options.map((x) => ({ key: x.key, bloc: x.bloc, votes: x.votes ?? 0 })),
+        orientation: o.blocA && o.blocB ? [o.blocA, o.blocB] : null, electionDate: election.date,
+      },
+    });
+  }
+  const metricSettings = { undecided: settings.undecided, designEffect: settings.designEffect };
+  const items: AuditPollDto[] = new Array<AuditPollDto>(inputs.polls.length);
+  for (let n = 0; n < inputs.polls.length; n++) {
+    const p = inputs.polls[n]!;
+    const c = contexts.get(p.contestId)!;
+    const inWindow = p.fieldworkEnd >= c.windowStart && p.fieldworkEnd <= c.electionDate;
+    const disclosure = disclosureOf(p).completeness;
+    if (!c.hasResult) {
+      items[n] = failedItem(p, c, inWindow, disclosure, `contest ${c.contestKey} has no result yet`, withDetail);
       continue;
     }
     try {
       const m = computePollMetrics(
         { n: p.sampleSize, moe: p.moe, fieldworkStart: p.fieldworkStart, fieldworkEnd: p.fieldworkEnd, shares: p.shares },
-        { options: contest.options.map((x) => ({ key: x.key, bloc: x.bloc, votes: x.votes ?? 0 })), orientation: o.blocA && o.blocB ? [o.blocA, o.blocB] : null, electionDate: election.date },
-        { undecided: settings.undecided, designEffect: settings.designEffect },
+        c.metricsContest,
+        metricSettings,
       );
-      items.push({
-        ...base, refA: m.refA, refB: m.refB, refBasis: m.refBasis, marginError: m.marginError, absMarginError: m.absMarginError, lean: m.lean,
+      // One object literal, fields always in this order: every item has the same shape.
+      const item: AuditPollDto = {
+        pollKey: p.key, contestKey: c.contestKey, electionKey: c.electionKey, pollsterId: p.pollsterId, pollster: p.pollster,
+        inWindow, isFinal: false, fieldworkEnd: p.fieldworkEnd, sampleSize: p.sampleSize, population: p.population, mode: p.mode,
+        sponsorType: p.sponsorType, disclosure,
+        refA: m.refA, refB: m.refB, refBasis: m.refBasis, marginError: m.marginError, absMarginError: m.absMarginError, lean: m.lean,
         mosteller3: m.mosteller3, mosteller5: m.mosteller5, mtkA: m.mtkA, mtkSe: m.mtkSe, mtkP: m.mtkP, aeB: m.aeB, aeBw: m.aeBw,
         winnerCalled: m.winnerCalled, shareCovered: m.shareCovered, marginCovered: m.marginCovered, daysOut: m.daysOut, daysOutEnd: m.daysOutEnd,
         undecidedShare: m.undecidedShare, twoPartyShareError: m.twoPartyShareError, nEff: m.nEff, pollA: m.pollA, pollB: m.pollB,
         resultA: m.resultA, resultB: m.resultB, notes: m.notes, error: null,
-        detail: {
+      };
+      if (withDetail) {
+        item.detail = {
           treatment: m.treatment, winner: m.winner, runnerUp: m.runnerUp, shareErrors: m.shareErrors, mosteller3Set: m.mosteller3Set,
           mtkZ: m.mtkZ, mtkLower: m.mtkLower, mtkUpper: m.mtkUpper, aePrime: m.aePrime, aeSe: m.aeSe, aeChi2: m.aeChi2, aeG2: m.aeG2,
           aeDf: m.aeDf, aeChi2P: m.aeChi2P, aeG2P: m.aeG2P, aeMerges: m.aeMerges, shareInterval: m.shareInterval,
           marginInterval: m.marginInterval, nEffBasis: m.nEffBasis, nDesign: m.nDesign,
-        },
-      });
+        };
+      }
+      items[n] = item;
     } catch (err) {
       if (!(err instanceof MetricInputError)) throw err;
-      items.push({ ...base, ...empty, error: err.message });
+      items[n] = failedItem(p, c, inWindow, disclosure, err.message, withDetail);
     }
   }
-  markFinal(items, inputs);
+  markFinal(items, inputs.polls);
   return items;
+}
+
+/** A poll whose metrics could not be computed: every metric null, with the reason. */
+function failedItem(p: PollRow, c: ContestContext, inWindow: boolean, disclosure: number, error: string, withDetail: boolean): AuditPollDto {
+  const item: AuditPollDto = {
+    pollKey: p.key, contestKey: c.contestKey, electionKey: c.electionKey, pollsterId: p.pollsterId, pollster: p.pollster,
+    inWindow, isFinal: false, fieldworkEnd: p.fieldworkEnd, sampleSize: p.sampleSize, population: p.population, mode: p.mode,
+    sponsorType: p.sponsorType, disclosure,
+    refA: null, refB: null, refBasis: null, marginError: null, absMarginError: null, lean: null, mosteller3: null, mosteller5: null, mtkA: null,
+    mtkSe: null, mtkP: null, aeB: null, aeBw: null, winnerCalled: null, shareCovered: null, marginCovered: null, daysOut: null, daysOutEnd: null,
+    undecidedShare: null, twoPartyShareError: null, nEff: null, pollA: null, pollB: null, resultA: null, resultB: null, notes: [], error,
+  };
+  if (withDetail) item.detail = null;
+  return item;
 }
 
 /**
  * A firm's final poll per contest (SPEC §5): among its headline polls in the window, the latest
  * fieldwork end, then the latest publication date, then the greatest poll key.
+ * `polls[i]` is the poll of `items[i]`.
  */
-function markFinal(items: AuditPollDto[], inputs: AuditInputs) {
-  const poll = new Map(inputs.polls.map((p) => [p.key, p]));
-  const best = new Map<string, AuditPollDto>();
-  for (const it of items) {
-    const p = poll.get(it.pollKey)!;
+function markFinal(items: AuditPollDto[], polls: readonly PollRow[]) {
+  const best = new Map<string, number>();
+  for (let i = 0; i < items.length; i++) {
+    const it = items[i]!;
+    const p = polls[i]!;
     if (!it.inWindow || !p.isHeadline) continue;
     const k = `${it.pollsterId}\u0000${it.contestKey}`;
     const cur = best.get(k);
-    if (!cur) {
-      best.set(k, it);
+    if (cur === undefined) {
+      best.set(k, i);
       continue;
     }
-    const q = poll.get(cur.pollKey)!;
+    const q = polls[cur]!;
     const later = p.fieldworkEnd !== q.fieldworkEnd ? p.fieldworkEnd > q.fieldworkEnd : p.publishedOn !== q.publishedOn ? p.publishedOn > q.publishedOn : p.key > q.key;
-    if (later) best.set(k, it);
+    if (later) best.set(k, i);
   }
-  for (const it of best.values()) it.isFinal = true;
+  for (const i of best.values()) items[i]!.isFinal = true;
 }
 
 /** The polls the scorecards and analyses use: in the window, final when the audit says so, computable. */
@@ -137,8 +184,22 @@ export function scorecardsFor(items: readonly AuditPollDto[], settings: AuditSet
 /** Margin sampling variance in points² from the poll's effective n (one multinomial sample). */
 const marginVariance = (pA: number, pB: number, nEff: number) => (10_000 * (pA / 100 + pB / 100 - ((pA - pB) / 100) ** 2)) / nEff;
 
+/** The shared-error analysis of one election (see {@link sharedErrorsFor} for every election at once). */
 export function sharedErrorFor(items: readonly AuditPollDto[], settings: AuditSettings, electionKey: string) {
-  const used = usedPolls(items, settings).filter((i) => i.electionKey === electionKey);
+  return sharedErrorOf(usedPolls(items, settings).filter((i) => i.electionKey === electionKey), electionKey);
+}
+
+/**
+ * The shared-error analysis of each of `electionKeys`, in that order, selecting the used polls
+ * once and grouping them by election (the same result as `sharedErrorFor` per election).
+ */
+export function* sharedErrorsFor(items: readonly AuditPollDto[], settings: AuditSettings, electionKeys: readonly string[]) {
+  const byElection = new Map<string, AuditPollDto[]>(electionKeys.map((k) => [k, []]));
+  for (const i of usedPolls(items, settings)) byElection.get(i.electionKey)?.push(i);
+  for (const key of electionKeys) yield sharedErrorOf(byElection.get(key) ?? [], key);
+}
+
+function sharedErrorOf(used: readonly AuditPollDto[], electionKey: string) {
   const oriented = used.filter((i) => i.refBasis === 'blocs' && i.nEff && i.pollA !== null && i.pollB !== null);
   const polls: SharedErrorPoll[] = oriented.map((i) => ({
     pollKey: i.pollKey, contestKey: i.contestKey, firm: i.pollster, signedError: i.marginError!,
