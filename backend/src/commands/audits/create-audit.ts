@@ -1,50 +1,123 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { AuditPollDto, AuditSettings } from '@veracast/shared-types';
 import { CORE_VERSION } from '../../analysis/version';
 import { unprocessable } from '../../http/errors';
-import { computeAuditPolls, headline, scorecardsFor, seedOf, sharedErrorFor } from './compute';
+import { computeAuditPolls, headline, scorecardsFor, seedOf, sharedErrorsFor } from './compute';
 import { loadAuditInputs } from './inputs';
-import { chunk } from '../imports/common';
+import { auditPartInsert, checkStatementSize } from './parts';
+
+/** Rows of one `INSERT INTO audit_polls` stop growing past this many characters (at most 3 bytes each: well below 16 MiB). */
+const POLL_CHUNK_CHARS = 4 * 1024 * 1024;
 
 /**
  * Creates a frozen audit: reads the chosen elections set-based, computes every poll's metrics,
  * the headline, the scorecards (seeded from the data hash) and the shared-error analysis per
  * election, and stores them with the settings, the data hash and the core's version.
+ *
+ * Storage: the audit row (settings, headline), one `audit_parts` row for the scorecards and one
+ * per election for its shared-error analysis (each its own INSERT), and the per-poll rows in
+ * INSERTs of about 4 MiB: no statement comes near the connector's 16 MiB limit. Statements are
+ * built lazily, one sent while the next is built, and the per-poll chunks alternate with the
+ * analyses so that the server writes rows while the next analysis is computed.
  */
 export async function createAudit(sequelize: Sequelize, name: string, settings: AuditSettings, userId: number | null, rerunOf: number | null = null) {
-  const inputs = await loadAuditInputs(sequelize, settings.electionKeys);
-  const missing = settings.electionKeys.filter((k) => !inputs.elections.some((e) => e.key === k));
-  if (missing.length) throw unprocessable('unknown_election', `Unknown election${missing.length > 1 ? 's' : ''}: ${missing.join(', ')}`, [{ field: 'electionKeys', message: `unknown: ${missing.join(', ')}` }]);
-  const items = computeAuditPolls(inputs, settings);
-  const summary = { headline: headline(items, settings, inputs.elections, inputs.contests) };
-  const scorecards = scorecardsFor(items, settings, seedOf(inputs.dataHash));
-  const sharedError = Object.fromEntries(inputs.elections.map((e) => [e.key, sharedErrorFor(items, settings, e.key)]));
+  const { items, summary, elections, dataHash, seed } = await computeAudit(sequelize, settings);
 
   return sequelize.transaction(async (transaction) => {
     const [id] = await sequelize.query(
       `INSERT INTO audits (name, settings, data_hash, core_version, poll_count, summary, scorecards, shared_error, rerun_of_id, created_by_id)
-       VALUES (:name, :settings, :hash, :core, :count, :summary, :scorecards, :sharedError, :rerunOf, :userId)`,
+       VALUES (:name, :settings, :hash, :core, :count, :summary, NULL, NULL, :rerunOf, :userId)`,
       {
-        replacements: {
-          name, settings: JSON.stringify(settings), hash: inputs.dataHash, core: CORE_VERSION, count: items.length, summary: JSON.stringify(summary),
-          scorecards: JSON.stringify(scorecards), sharedError: JSON.stringify(sharedError), rerunOf, userId,
-        },
+        replacements: { name, settings: JSON.stringify(settings), hash: dataHash, core: CORE_VERSION, count: items.length, summary, rerunOf, userId },
         type: QueryTypes.INSERT,
         transaction,
       },
     );
     const auditId = Number(id);
-    const esc = (v: string) => sequelize.escape(v);
-    for (const part of chunk(items, 2000)) {
-      await sequelize.query(
-        `INSERT INTO audit_polls (audit_id, poll_key, election_key, contest_key, pollster_id, in_window, is_final, abs_margin_error, metrics) VALUES ${part
-          .map((i) => `(${auditId},${esc(i.pollKey)},${esc(i.electionKey)},${esc(i.contestKey)},${i.pollsterId},${i.inWindow ? 1 : 0},${i.isFinal ? 1 : 0},${i.absMarginError ?? 'NULL'},${esc(JSON.stringify(i))})`)
-          .join(',')}`,
-        { transaction },
-      );
-    }
-    return { id: auditId, dataHash: inputs.dataHash, pollCount: items.length };
+    const parts = partStatements(sequelize, auditId, items, settings, elections, seed);
+    const polls = pollStatements(sequelize, auditId, items);
+    await sendInTurn(sequelize, alternate(polls, parts), transaction);
+    return { id: auditId, dataHash, pollCount: items.length };
   });
+}
+
+/**
+ * Reads the inputs and computes the per-poll rows (without detail) and the headline. The inputs
+ * are released on return.
+ */
+async function computeAudit(sequelize: Sequelize, settings: AuditSettings) {
+  const inputs = await loadAuditInputs(sequelize, settings.electionKeys);
+  const missing = settings.electionKeys.filter((k) => !inputs.elections.some((e) => e.key === k));
+  if (missing.length) throw unprocessable('unknown_election', `Unknown election${missing.length > 1 ? 's' : ''}: ${missing.join(', ')}`, [{ field: 'electionKeys', message: `unknown: ${missing.join(', ')}` }]);
+  const items = computeAuditPolls(inputs, settings, { detail: false });
+  const summary = JSON.stringify({ headline: headline(items, settings, inputs.elections, inputs.contests) });
+  return { items, summary, elections: inputs.elections.map((e) => e.key), dataHash: inputs.dataHash, seed: seedOf(inputs.dataHash) };
+}
+
+/** The scorecards' INSERT, then each election's analysis INSERT; each computed only when asked for. */
+function* partStatements(sequelize: Sequelize, auditId: number, items: readonly AuditPollDto[], settings: AuditSettings, elections: readonly string[], seed: number) {
+  yield auditPartInsert(sequelize, auditId, 'scorecards', '', JSON.stringify(scorecardsFor(items, settings, seed)));
+  let n = 0;
+  for (const analysis of sharedErrorsFor(items, settings, elections)) {
+    yield auditPartInsert(sequelize, auditId, 'shared_error', elections[n++]!, JSON.stringify(analysis));
+  }
+}
+
+/** The per-poll INSERTs, each of about POLL_CHUNK_CHARS, built only when asked for. */
+function* pollStatements(sequelize: Sequelize, auditId: number, items: readonly AuditPollDto[]) {
+  const esc = (v: string) => sequelize.escape(v);
+  const head = 'INSERT INTO audit_polls (audit_id, poll_key, election_key, contest_key, pollster_id, in_window, is_final, abs_margin_error, metrics) VALUES ';
+  let rows: string[] = [];
+  let chars = head.length;
+  for (const i of items) {
+    const row = `(${auditId},${esc(i.pollKey)},${esc(i.electionKey)},${esc(i.contestKey)},${i.pollsterId},${i.inWindow ? 1 : 0},${i.isFinal ? 1 : 0},${i.absMarginError ?? 'NULL'},${esc(JSON.stringify(i))})`;
+    if (rows.length && chars + row.length + 1 > POLL_CHUNK_CHARS) {
+      yield checkStatementSize(head + rows.join(','), 'A chunk of per-poll rows');
+      rows = [];
+      chars = head.length;
+    }
+    rows.push(row);
+    chars += row.length + 1;
+  }
+  if (rows.length) yield checkStatementSize(head + rows.join(','), 'A chunk of per-poll rows');
+}
+
+/** One from each in turn until both are exhausted. */
+function* alternate<T>(a: Iterator<T>, b: Iterator<T>) {
+  let doneA = false;
+  let doneB = false;
+  while (!doneA || !doneB) {
+    if (!doneA) {
+      const x = a.next();
+      if (x.done) doneA = true;
+      else yield x.value;
+    }
+    if (!doneB) {
+      const y = b.next();
+      if (y.done) doneB = true;
+      else yield y.value;
+    }
+  }
+}
+
+/**
+ * Sends the statements in order on the transaction's connection, building the next one (the
+ * JavaScript work behind it) while the server runs the previous one.
+ */
+async function sendInTurn(sequelize: Sequelize, statements: Iterable<string>, transaction: Transaction) {
+  let pending: Promise<unknown> | null = null;
+  try {
+    for (const sql of statements) {
+      if (pending) await pending;
+      pending = sequelize.query(sql, { transaction });
+      // Rejections are awaited below; this only keeps one in flight from counting as unhandled.
+      pending.catch(() => undefined);
+    }
+    if (pending) await pending;
+  } catch (err) {
+    if (pending) await pending.catch(() => undefined);
+    throw err;
+  }
 }
 
 export async function loadAuditPolls(sequelize: Sequelize, auditId: number, electionKey?: string): Promise<AuditPollDto[]> {

@@ -8,6 +8,7 @@ import { sendList, wantsCsv, toCsv } from '../../http/csv';
 import { idParam } from '../../http/params';
 import { createAudit, loadAuditPolls } from '../../commands/audits/create-audit';
 import { loadAuditInputs } from '../../commands/audits/inputs';
+import { loadStoredScorecards, loadStoredSharedErrors } from '../../commands/audits/parts';
 import { scorecardsFor, seedOf, usedPolls } from '../../commands/audits/compute';
 import { auditBreakdowns, auditHistory } from '../../commands/audits/breakdowns';
 import { loadContests, loadElections, orientationOf } from '../../queries/archive';
@@ -16,8 +17,11 @@ import type { AppContext } from '../../http/context';
 
 interface AuditRow {
   id: number; name: string; settings: string; data_hash: string; core_version: string; poll_count: number; summary: string;
-  scorecards: string | null; shared_error: string | null; rerun_of_id: number | null; created_at: Date; created_by: string | null;
+  rerun_of_id: number | null; created_at: Date; created_by: string | null;
 }
+
+/** The audit row without its large stored results (those are read apart: see commands/audits/parts). */
+const AUDIT_SELECT = 'SELECT a.id, a.name, a.settings, a.data_hash, a.core_version, a.poll_count, a.summary, a.rerun_of_id, a.created_at, u.email AS created_by FROM audits a LEFT JOIN users u ON u.id = a.created_by_id';
 
 export const AUDIT_POLL_COLUMNS = [
   'pollKey', 'contestKey', 'electionKey', 'pollster', 'fieldworkEnd', 'sampleSize', 'population', 'mode', 'refA', 'refB', 'marginError', 'absMarginError', 'lean',
@@ -30,7 +34,7 @@ export function auditsRouter(ctx: AppContext) {
 
   async function findAudit(req: Request): Promise<AuditRow> {
     const rows = await s.query<AuditRow>(
-      'SELECT a.*, u.email AS created_by FROM audits a LEFT JOIN users u ON u.id = a.created_by_id WHERE a.id = :id',
+      `${AUDIT_SELECT} WHERE a.id = :id`,
       { replacements: { id: idParam(req.params.id) }, type: QueryTypes.SELECT },
     );
     if (!rows[0]) throw notFound('Audit');
@@ -60,7 +64,7 @@ export function auditsRouter(ctx: AppContext) {
   });
 
   async function findAuditById(id: number) {
-    const rows = await s.query<AuditRow>('SELECT a.*, u.email AS created_by FROM audits a LEFT JOIN users u ON u.id = a.created_by_id WHERE a.id = :id', { replacements: { id }, type: QueryTypes.SELECT });
+    const rows = await s.query<AuditRow>(`${AUDIT_SELECT} WHERE a.id = :id`, { replacements: { id }, type: QueryTypes.SELECT });
     return rows[0]!;
   }
 
@@ -104,7 +108,8 @@ export function auditsRouter(ctx: AppContext) {
     const settings = JSON.parse(row.settings) as AuditSettings;
     const filtered = q.elections || q.kind || q.modes || q.populations || q.sponsorTypes || q.minPolls;
     let result: ReturnType<typeof scorecardsFor>;
-    if (!filtered && row.scorecards) result = JSON.parse(row.scorecards) as ReturnType<typeof scorecardsFor>;
+    const stored = filtered ? null : await loadStoredScorecards(s, row.id);
+    if (stored) result = JSON.parse(stored) as ReturnType<typeof scorecardsFor>;
     else {
       let items: AuditPollDto[] = await loadAuditPolls(s, row.id);
       if (q.elections) items = items.filter((i) => q.elections!.includes(i.electionKey));
@@ -128,7 +133,7 @@ export function auditsRouter(ctx: AppContext) {
   router.get('/:id/shared-error', requireRole('viewer'), async (req, res) => {
     const q = parse(sharedErrorQuerySchema, req.query, 'query');
     const row = await findAudit(req);
-    const stored = JSON.parse(row.shared_error ?? '{}') as Record<string, { contestsDetail: object[]; pairs: object[] }>;
+    const stored = await loadStoredSharedErrors<{ contestsDetail: object[]; pairs: object[] }>(s, row.id, [q.election]);
     const analysis = stored[q.election];
     if (!analysis) throw notFound(`Election ${q.election} in this audit`);
     if (wantsCsv(req)) {

@@ -2,6 +2,7 @@ import { QueryTypes, type Sequelize } from 'sequelize';
 import type { AuditHeadline, AuditPollDto, AuditSettings } from '@veracast/shared-types';
 import { loadAuditPolls } from '../../commands/audits/create-audit';
 import { loadAuditInputs } from '../../commands/audits/inputs';
+import { loadStoredScorecards, loadStoredSharedErrors } from '../../commands/audits/parts';
 import { loadElections } from '../../queries/archive';
 
 /** The scorecard fields a block shows (a subset of the stored scorecard item). */
@@ -43,8 +44,7 @@ export interface AuditSnapshot {
 }
 
 interface AuditRow {
-  id: number; name: string; settings: string; data_hash: string; core_version: string; summary: string;
-  scorecards: string | null; shared_error: string | null; created_at: Date;
+  id: number; name: string; settings: string; data_hash: string; core_version: string; summary: string; created_at: Date;
 }
 
 /** Loads the audits named by `ids`; a missing id is simply absent from the map. */
@@ -56,12 +56,13 @@ export async function loadAuditSnapshots(
   const out = new Map<number, AuditSnapshot>();
   if (!ids.length) return out;
   const rows = await sequelize.query<AuditRow>(
-    'SELECT id, name, settings, data_hash, core_version, summary, scorecards, shared_error, created_at FROM audits WHERE id IN (:ids)',
+    'SELECT id, name, settings, data_hash, core_version, summary, created_at FROM audits WHERE id IN (:ids)',
     { replacements: { ids: [...new Set(ids)] }, type: QueryTypes.SELECT },
   );
   for (const row of rows) {
     const settings = JSON.parse(row.settings) as AuditSettings;
     const elections = await loadElections(sequelize, { keys: settings.electionKeys });
+    const scorecards = await loadStoredScorecards(sequelize, row.id);
     out.set(row.id, {
       id: row.id,
       name: row.name,
@@ -70,8 +71,8 @@ export async function loadAuditSnapshots(
       coreVersion: row.core_version,
       createdAt: new Date(row.created_at).toISOString(),
       headline: (JSON.parse(row.summary) as { headline: AuditHeadline }).headline,
-      scorecards: row.scorecards ? (JSON.parse(row.scorecards) as AuditSnapshot['scorecards']) : null,
-      sharedError: JSON.parse(row.shared_error ?? '{}') as AuditSnapshot['sharedError'],
+      scorecards: scorecards ? (JSON.parse(scorecards) as AuditSnapshot['scorecards']) : null,
+      sharedError: await loadStoredSharedErrors<StoredSharedError>(sequelize, row.id),
       elections: elections.map((e) => ({ key: e.key, name: e.name, date: e.date, fictional: e.fictional })),
       polls: options.withPolls?.has(row.id) ? await loadAuditPolls(sequelize, row.id) : null,
       currentHash: options.checkCurrent ? (await loadAuditInputs(sequelize, settings.electionKeys)).dataHash : null,
