@@ -19,11 +19,56 @@ export class ImportFileError extends Error {
   }
 }
 
+/** A CSV file opened for reading row by row (see `openCsv`). */
+export interface CsvReader {
+  /** Header cells, trimmed and lower-cased. */
+  headers: string[];
+  /**
+   * Hands each data row (trimmed cells, blank rows skipped) to `onRow` in file order and returns
+   * the number of data rows. The reader keeps no row: a row array is the callback's to keep or drop.
+   * Call it once.
+   */
+  forEachRow: (onRow: (cells: string[], index: number) => void) => number;
+  /** Spreadsheet row number of each data row (header = 1). */
+  lineOf: (index: number) => number;
+}
+
+const lineOfIndex = (i: number) => i + 2;
+
+/** Trims every cell in place; false when the row is blank (papaparse's greedy rule: all cells blank). */
+function trimCells(cells: string[]): boolean {
+  let any = false;
+  for (let j = 0; j < cells.length; j++) {
+    const v = cells[j]!.trim();
+    cells[j] = v;
+    if (v !== '') any = true;
+  }
+  return any;
+}
+
 /**
- * Parses a CSV file: UTF-8 with or without BOM, comma or semicolon delimited, header row first.
- * Blank lines are skipped. Throws ImportFileError for a file that is not such a CSV.
+ * papaparse's choice of line ending for a file without quote characters: `\n` unless `\r` comes
+ * first, then `\r\n` when at least half the `\r` are followed by `\n`, else `\r` (first 1 MB).
  */
-export function parseCsv(buffer: Buffer): ParsedCsv {
+function guessNewline(text: string): '\n' | '\r\n' | '\r' {
+  const head = text.substring(0, 1024 * 1024);
+  const r = head.split('\r');
+  const n = head.split('\n');
+  if (r.length === 1 || (n.length > 1 && n[0]!.length < r[0]!.length)) return '\n';
+  let withN = 0;
+  for (const part of r) if (part[0] === '\n') withN++;
+  return withN >= r.length / 2 ? '\r\n' : '\r';
+}
+
+/**
+ * Opens a CSV file: UTF-8 with or without BOM, comma or semicolon delimited, header row first.
+ * Blank lines are skipped. Throws ImportFileError for a file that is not such a CSV.
+ *
+ * A file without quote characters is split line by line as it is read (what papaparse itself
+ * does for such input), so no array of all rows is ever built; a file with quotes goes through
+ * papaparse whole, so its quoting errors are reported before anything else.
+ */
+export function openCsv(buffer: Buffer): CsvReader {
   let text: string;
   try {
     text = new TextDecoder('utf-8', { fatal: true }).decode(buffer);
@@ -33,6 +78,43 @@ export function parseCsv(buffer: Buffer): ParsedCsv {
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
   const firstLine = text.slice(0, text.search(/\r?\n|$/));
   const delimiter = (firstLine.match(/;/g)?.length ?? 0) > (firstLine.match(/,/g)?.length ?? 0) ? ';' : ',';
+
+  if (!text.includes('"')) {
+    const newline = text.includes('\r') ? guessNewline(text) : '\n';
+    const len = text.length;
+    let pos = 0;
+    /** The next line (as `text.split(newline)` would give it), or null past the end. */
+    const nextLine = (): string | null => {
+      if (pos > len) return null;
+      let end = text.indexOf(newline, pos);
+      if (end === -1) end = len;
+      const line = text.slice(pos, end);
+      pos = end + newline.length;
+      return line;
+    };
+    let head: string[] | null = null;
+    for (let line = nextLine(); line !== null; line = nextLine()) {
+      const cells = line.split(delimiter);
+      if (trimCells(cells)) {
+        head = cells;
+        break;
+      }
+    }
+    if (!head) throw new ImportFileError('empty_file', 'The file has no header row');
+    return {
+      headers: head.map((h) => h.toLowerCase()),
+      lineOf: lineOfIndex,
+      forEachRow: (onRow) => {
+        let index = 0;
+        for (let line = nextLine(); line !== null; line = nextLine()) {
+          const cells = line.split(delimiter);
+          if (trimCells(cells)) onRow(cells, index++);
+        }
+        return index;
+      },
+    };
+  }
+
   const parsed = Papa.parse<string[]>(text, { delimiter, skipEmptyLines: 'greedy' });
   const fatal = parsed.errors.find((e) => e.type === 'Quotes');
   if (fatal) {
@@ -40,11 +122,32 @@ export function parseCsv(buffer: Buffer): ParsedCsv {
       { row: (fatal.row ?? 0) + 1, column: '', code: 'bad_csv', message: fatal.message },
     ]);
   }
-  const [head, ...body] = parsed.data;
+  const data = parsed.data;
+  const head = data[0];
   if (!head || head.length === 0) throw new ImportFileError('empty_file', 'The file has no header row');
-  const headers = head.map((h) => h.trim().toLowerCase());
-  const rows = body.map((r) => r.map((c) => (c ?? '').trim()));
-  return { headers, rows, lineOf: (i) => i + 2 };
+  return {
+    headers: head.map((h) => h.trim().toLowerCase()),
+    lineOf: lineOfIndex,
+    forEachRow: (onRow) => {
+      const n = data.length - 1;
+      for (let i = 1; i < data.length; i++) {
+        const cells = data[i]!.map((c) => (c ?? '').trim());
+        data[i] = [];
+        onRow(cells, i - 1);
+      }
+      return n;
+    },
+  };
+}
+
+/** Parses a whole CSV file (see `openCsv`) into its header and all its rows. */
+export function parseCsv(buffer: Buffer): ParsedCsv {
+  const csv = openCsv(buffer);
+  const rows: string[][] = [];
+  csv.forEachRow((cells) => {
+    rows.push(cells);
+  });
+  return { headers: csv.headers, rows, lineOf: csv.lineOf };
 }
 
 /** Header names that only a respondent-level (microdata) file would have. */
