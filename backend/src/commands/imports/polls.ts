@@ -4,8 +4,8 @@ import {
   MODES, POLL_COLUMNS, POLL_EXTRA_COLUMNS, POLL_WIDE_FIXED_COLUMNS, POPULATIONS, RESERVED_OPTION_KEYS, SPONSOR_TYPES,
   type Mode, type Population, type SponsorType,
 } from '@veracast/shared-types';
-import { applyColumnMap, ImportFileError, isIsoDate, isUrl, KEY_RE, normalizeName, parseBool, parseCsv, refuseRespondentLevel, requireColumns } from './csv';
-import { chunk, Collector, recordImport, sqlValue, type ImportOptions } from './common';
+import { applyColumnMap, ImportFileError, isIsoDate, isUrl, KEY_RE, normalizeName, openCsv, parseBool, refuseRespondentLevel, requireColumns } from './csv';
+import { chunk, Collector, recordImport, type ImportOptions } from './common';
 import type { ImportOutcome } from './results';
 
 export interface PollImportOptions extends ImportOptions {
@@ -16,17 +16,25 @@ export interface PollImportOptions extends ImportOptions {
   pollsterMap?: Record<string, number>;
 }
 
+/**
+ * One poll as read from the file. `cells` is the poll's first row (trimmed cells, by column
+ * index); later rows of the poll are compared with it and dropped. `shares` is flat: option key,
+ * share, row index, for each distinct option in first-seen order.
+ */
 interface PollDraft {
   key: string;
   firstIndex: number;
-  indexes: number[];
-  fields: Record<string, string>;
-  shares: Map<string, { share: number; index: number }>;
+  /** Last row index of the poll; with `firstIndex`, its rows when `scattered` is null. */
+  lastIndex: number;
+  /** Every row index of the poll, once its rows are not one contiguous run. */
+  scattered: number[] | null;
+  cells: string[];
+  shares: (string | number)[];
 }
 
 interface CleanPoll {
   key: string;
-  indexes: number[];
+  draft: PollDraft;
   pollster: string;
   sponsor: string | null;
   sponsorType: SponsorType | null;
@@ -45,82 +53,156 @@ interface CleanPoll {
   questionWording: boolean;
   weightingStatement: boolean;
   tablesUrl: string | null;
-  shares: [string, number][];
 }
 
 /** Per-poll fields that must agree on every row of one poll in the long layout. */
 const POLL_FIELDS = [...POLL_WIDE_FIXED_COLUMNS.filter((c) => c !== 'poll_key'), ...POLL_EXTRA_COLUMNS];
+type PollField = (typeof POLL_FIELDS)[number];
 const NUM_RE = /^\d+(\.\d+)?$/;
 const round3 = (x: number) => Math.round(x * 1000) / 1000;
+const ER_DUP_ENTRY = 1062;
+
+/** A draft's row indexes, in the order they were read. */
+function indexesOf(d: PollDraft): number[] {
+  if (d.scattered) return d.scattered;
+  const out: number[] = [];
+  for (let x = d.firstIndex; x <= d.lastIndex; x++) out.push(x);
+  return out;
+}
+
+function addIndex(d: PollDraft, index: number) {
+  if (d.scattered) d.scattered.push(index);
+  else if (index === d.lastIndex + 1) d.lastIndex = index;
+  else {
+    d.scattered = indexesOf(d);
+    d.scattered.push(index);
+  }
+  d.lastIndex = index;
+}
+
+function anyBad(d: PollDraft, bad: ReadonlySet<number>): boolean {
+  if (d.scattered) return d.scattered.some((x) => bad.has(x));
+  for (let x = d.firstIndex; x <= d.lastIndex; x++) if (bad.has(x)) return true;
+  return false;
+}
+
+/** The poll's shares as [option key, share] in first-seen order. */
+function sharesOf(d: PollDraft): [string, number][] {
+  const out: [string, number][] = [];
+  for (let j = 0; j < d.shares.length; j += 3) out.push([d.shares[j] as string, d.shares[j + 1] as number]);
+  return out;
+}
+
+/** Memoises a function of one string (for values that repeat across many rows). */
+function memo<T>(fn: (s: string) => T): (s: string) => T {
+  const cache = new Map<string, T>();
+  return (s) => {
+    let v = cache.get(s);
+    if (v === undefined && !cache.has(s)) {
+      v = fn(s);
+      cache.set(s, v);
+    }
+    return v as T;
+  };
+}
 
 /**
  * Imports published polls (SPEC §3), long or wide layout. Validation is row by row; writing is
- * set-based (multi-row INSERT … ON DUPLICATE KEY UPDATE in batches) inside one transaction.
+ * set-based (multi-row INSERTs in batches) inside one transaction.
  * Counts (created/updated/unchanged/skipped) are of polls; `rows` is the file's data rows.
  */
 export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: PollImportOptions): Promise<ImportOutcome> {
   const fileHash = createHash('sha256').update(buffer).digest('hex');
-  const csv = parseCsv(buffer);
+  const csv = openCsv(buffer);
   refuseRespondentLevel(csv.headers);
   const headers = applyColumnMap(csv.headers, opts.columnMap);
   const layout = opts.layout ?? (headers.includes('option_key') && headers.includes('share') ? 'long' : 'wide');
   const c = new Collector(csv.lineOf);
   const drafts = new Map<string, PollDraft>();
   const at = Object.fromEntries(headers.map((h, i) => [h, i]));
-  const field = (cells: string[], name: string) => (at[name] !== undefined ? (cells[at[name]!] ?? '') : '');
+  /** Column index of each per-poll field, -1 when the file lacks it. */
+  const fieldCol = POLL_FIELDS.map((f) => at[f] ?? -1);
+  const colOf = Object.fromEntries(POLL_FIELDS.map((f, j) => [f, fieldCol[j]!])) as Record<PollField, number>;
+  const cell = (cells: string[], col: number) => (col < 0 ? '' : (cells[col] ?? ''));
+  const keyCol = at.poll_key ?? -1;
+  const isoDate = memo(isIsoDate);
+  const optionKeyOk = memo((k: string) => KEY_RE.test(k));
+  const lowerOption = memo((k: string) => k.toLowerCase());
+  /** A share cell's value: the number, or 'format' / 'over' for the two ways it can be wrong. */
+  const shareValue = memo((raw: string): number | 'format' | 'over' => {
+    const cleaned = raw.replace(',', '.');
+    if (!NUM_RE.test(cleaned)) return 'format';
+    const share = Number(cleaned);
+    return share > 100 ? 'over' : share;
+  });
 
+  let rowCount: number;
   if (layout === 'long') {
     requireColumns(headers, POLL_COLUMNS);
-    csv.rows.forEach((cells, index) => {
-      const key = field(cells, 'poll_key');
+    const optionCol = at.option_key ?? -1;
+    const shareCol = at.share ?? -1;
+    rowCount = csv.forEachRow((cells, index) => {
+      const key = cell(cells, keyCol);
       if (!key) return c.add(index, 'poll_key', 'required', 'poll_key is required');
       let d = drafts.get(key);
       if (!d) {
-        d = { key, firstIndex: index, indexes: [], fields: Object.fromEntries(POLL_FIELDS.map((f) => [f, field(cells, f)])), shares: new Map() };
+        d = { key, firstIndex: index, lastIndex: index, scattered: null, cells, shares: [] };
         drafts.set(key, d);
       } else {
-        for (const f of POLL_FIELDS) {
-          const v = field(cells, f);
-          if (v !== d.fields[f]) c.add(index, f, 'duplicate_key', `poll ${key} has ${f} "${v}" here but "${d.fields[f]}" on row ${csv.lineOf(d.firstIndex)}`);
+        for (let j = 0; j < fieldCol.length; j++) {
+          const col = fieldCol[j]!;
+          if (col < 0) continue;
+          const v = cell(cells, col);
+          const first = cell(d.cells, col);
+          if (v !== first) {
+            const f = POLL_FIELDS[j]!;
+            c.add(index, f, 'duplicate_key', `poll ${key} has ${f} "${v}" here but "${first}" on row ${csv.lineOf(d.firstIndex)}`);
+          }
         }
+        addIndex(d, index);
       }
-      d.indexes.push(index);
-      addShare(d, index, field(cells, 'option_key').toLowerCase(), field(cells, 'share'), 'share');
+      addShare(d, index, lowerOption(cell(cells, optionCol)), cell(cells, shareCol), 'share');
     });
   } else {
     requireColumns(headers, POLL_WIDE_FIXED_COLUMNS);
     const fixed = new Set<string>([...POLL_WIDE_FIXED_COLUMNS, ...POLL_EXTRA_COLUMNS]);
     const optionColumns = headers
       .map((h, i) => ({ h, i, key: opts.optionMap ? (opts.optionMap[h] ?? opts.optionMap[csv.headers[i] ?? ''] ?? '') : h }))
-      .filter((o) => !fixed.has(o.h) && o.key);
+      .filter((o) => !fixed.has(o.h) && o.key)
+      .map((o) => ({ ...o, key: o.key.toLowerCase() }));
     if (!optionColumns.length) throw new ImportFileError('no_option_columns', 'The wide layout needs at least one option column mapped to an option key');
-    csv.rows.forEach((cells, index) => {
-      const key = field(cells, 'poll_key');
+    rowCount = csv.forEachRow((cells, index) => {
+      const key = cell(cells, keyCol);
       if (!key) return c.add(index, 'poll_key', 'required', 'poll_key is required');
-      if (drafts.has(key)) return c.add(index, 'poll_key', 'duplicate_key', `poll ${key} appears twice in a wide file (first on row ${csv.lineOf(drafts.get(key)!.firstIndex)})`);
-      const d: PollDraft = { key, firstIndex: index, indexes: [index], fields: Object.fromEntries(POLL_FIELDS.map((f) => [f, field(cells, f)])), shares: new Map() };
+      const seen = drafts.get(key);
+      if (seen) return c.add(index, 'poll_key', 'duplicate_key', `poll ${key} appears twice in a wide file (first on row ${csv.lineOf(seen.firstIndex)})`);
+      const d: PollDraft = { key, firstIndex: index, lastIndex: index, scattered: null, cells, shares: [] };
       drafts.set(key, d);
       for (const o of optionColumns) {
         const raw = cells[o.i] ?? '';
-        if (raw !== '') addShare(d, index, o.key.toLowerCase(), raw, o.h);
+        if (raw !== '') addShare(d, index, o.key, raw, o.h);
       }
     });
   }
 
   function addShare(d: PollDraft, index: number, optionKey: string, raw: string, column: string) {
     if (!optionKey) return c.add(index, 'option_key', 'required', 'option_key is required');
-    if (!KEY_RE.test(optionKey)) return c.add(index, 'option_key', 'bad_key', `option_key "${optionKey}" must use lower-case letters, digits, dot, dash or underscore`);
-    const cleaned = raw.replace(',', '.');
-    if (!NUM_RE.test(cleaned)) return c.add(index, column, 'bad_share', `share "${raw}" must be a number from 0 to 100`);
-    const share = Number(cleaned);
-    if (share > 100) return c.add(index, column, 'bad_share', `share ${raw} is above 100`);
-    const prev = d.shares.get(optionKey);
-    if (prev && prev.share !== share) return c.add(index, 'option_key', 'duplicate_key', `option ${optionKey} of poll ${d.key} appears again with a different share (first on row ${csv.lineOf(prev.index)})`);
-    d.shares.set(optionKey, { share, index });
+    if (!optionKeyOk(optionKey)) return c.add(index, 'option_key', 'bad_key', `option_key "${optionKey}" must use lower-case letters, digits, dot, dash or underscore`);
+    const share = shareValue(raw);
+    if (share === 'format') return c.add(index, column, 'bad_share', `share "${raw}" must be a number from 0 to 100`);
+    if (share === 'over') return c.add(index, column, 'bad_share', `share ${raw} is above 100`);
+    const s = d.shares;
+    for (let j = 0; j < s.length; j += 3) {
+      if (s[j] !== optionKey) continue;
+      if (s[j + 1] !== share) return c.add(index, 'option_key', 'duplicate_key', `option ${optionKey} of poll ${d.key} appears again with a different share (first on row ${csv.lineOf(s[j + 2] as number)})`);
+      s[j + 2] = index;
+      return;
+    }
+    s.push(optionKey, share, index);
   }
 
   // Reference data from the database, set-based.
-  const contestKeys = [...new Set([...drafts.values()].map((d) => d.fields.contest_key ?? ''))].filter(Boolean);
+  const contestKeys = [...new Set([...drafts.values()].map((d) => cell(d.cells, colOf.contest_key)))].filter(Boolean);
   const contests = new Map<string, { id: number; date: string; blackoutStart: string | null; options: Set<string> }>();
   for (const part of chunk(contestKeys, 5000)) {
     const found = await sequelize.query<{ id: number; key: string; election_date: string }>(
@@ -138,69 +220,86 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
     }
   }
 
+  const reservedOption = new Set<string>(RESERVED_OPTION_KEYS);
+  const sampleSizeOk = memo((n: string) => /^[1-9]\d{0,8}$/.test(n));
   const clean: CleanPoll[] = [];
   for (const d of drafts.values()) {
     const i = d.firstIndex;
-    const f = d.fields as Record<string, string>;
+    const f = (name: PollField) => cell(d.cells, colOf[name]);
     const before = c.badRows.size;
     if (!KEY_RE.test(d.key)) c.add(i, 'poll_key', 'bad_key', `poll_key "${d.key}" must use lower-case letters, digits, dot, dash or underscore`);
-    if (!f.pollster) c.add(i, 'pollster', 'required', 'pollster is required');
-    else if (f.pollster.length > 200) c.add(i, 'pollster', 'too_long', 'pollster must be at most 200 characters');
-    const contest = contests.get(f.contest_key ?? '');
-    if (!f.contest_key) c.add(i, 'contest_key', 'required', 'contest_key is required');
-    else if (!contest) c.add(i, 'contest_key', 'unknown_contest', `contest ${f.contest_key} is unknown; import its results first`);
-    for (const name of ['fieldwork_start', 'fieldwork_end', 'published_on'] as const) {
-      if (!isIsoDate(f[name] ?? '')) c.add(i, name, 'bad_date', `${name} "${f[name] ?? ''}" must be a date as YYYY-MM-DD`);
-    }
-    const start = f.fieldwork_start ?? '';
-    const end = f.fieldwork_end ?? '';
-    const pub = f.published_on ?? '';
-    if (isIsoDate(start) && isIsoDate(end) && end < start) c.add(i, 'fieldwork_end', 'end_before_start', `fieldwork_end ${end} is before fieldwork_start ${start}`);
-    if (contest && isIsoDate(end) && end > contest.date) c.add(i, 'fieldwork_end', 'after_election', `fieldwork_end ${end} is after election day ${contest.date}`);
-    if (contest && isIsoDate(pub) && pub > contest.date) c.add(i, 'published_on', 'after_election', `published_on ${pub} is after election day ${contest.date}`);
-    if (isIsoDate(pub) && isIsoDate(end) && pub < end) c.add(i, 'published_on', 'before_fieldwork_end', `published_on ${pub} is before fieldwork_end ${end}`);
-    const n = f.sample_size ?? '';
-    if (!/^[1-9]\d{0,8}$/.test(n)) c.add(i, 'sample_size', 'not_positive_integer', `sample_size "${n}" must be a positive whole number`);
-    const population = (f.population ?? '').toLowerCase();
-    if (!(POPULATIONS as readonly string[]).includes(population)) c.add(i, 'population', 'bad_population', `population "${f.population ?? ''}" must be one of ${POPULATIONS.join(', ')}`);
-    const mode = (f.mode ?? '').toLowerCase();
-    if (!(MODES as readonly string[]).includes(mode)) c.add(i, 'mode', 'bad_mode', `mode "${f.mode ?? ''}" must be one of ${MODES.join(', ')}`);
-    const moeRaw = (f.moe ?? '').replace(',', '.');
+    const pollster = f('pollster');
+    if (!pollster) c.add(i, 'pollster', 'required', 'pollster is required');
+    else if (pollster.length > 200) c.add(i, 'pollster', 'too_long', 'pollster must be at most 200 characters');
+    const contestKey = f('contest_key');
+    const contest = contests.get(contestKey);
+    if (!contestKey) c.add(i, 'contest_key', 'required', 'contest_key is required');
+    else if (!contest) c.add(i, 'contest_key', 'unknown_contest', `contest ${contestKey} is unknown; import its results first`);
+    const start = f('fieldwork_start');
+    const end = f('fieldwork_end');
+    const pub = f('published_on');
+    const startOk = isoDate(start);
+    const endOk = isoDate(end);
+    const pubOk = isoDate(pub);
+    if (!startOk) c.add(i, 'fieldwork_start', 'bad_date', `fieldwork_start "${start}" must be a date as YYYY-MM-DD`);
+    if (!endOk) c.add(i, 'fieldwork_end', 'bad_date', `fieldwork_end "${end}" must be a date as YYYY-MM-DD`);
+    if (!pubOk) c.add(i, 'published_on', 'bad_date', `published_on "${pub}" must be a date as YYYY-MM-DD`);
+    if (startOk && endOk && end < start) c.add(i, 'fieldwork_end', 'end_before_start', `fieldwork_end ${end} is before fieldwork_start ${start}`);
+    if (contest && endOk && end > contest.date) c.add(i, 'fieldwork_end', 'after_election', `fieldwork_end ${end} is after election day ${contest.date}`);
+    if (contest && pubOk && pub > contest.date) c.add(i, 'published_on', 'after_election', `published_on ${pub} is after election day ${contest.date}`);
+    if (pubOk && endOk && pub < end) c.add(i, 'published_on', 'before_fieldwork_end', `published_on ${pub} is before fieldwork_end ${end}`);
+    const n = f('sample_size');
+    if (!sampleSizeOk(n)) c.add(i, 'sample_size', 'not_positive_integer', `sample_size "${n}" must be a positive whole number`);
+    const populationRaw = f('population');
+    const population = populationRaw.toLowerCase();
+    if (!(POPULATIONS as readonly string[]).includes(population)) c.add(i, 'population', 'bad_population', `population "${populationRaw}" must be one of ${POPULATIONS.join(', ')}`);
+    const modeRaw = f('mode');
+    const mode = modeRaw.toLowerCase();
+    if (!(MODES as readonly string[]).includes(mode)) c.add(i, 'mode', 'bad_mode', `mode "${modeRaw}" must be one of ${MODES.join(', ')}`);
+    const moeText = f('moe');
+    const moeRaw = moeText.replace(',', '.');
     const moe = moeRaw === '' ? null : Number(moeRaw);
-    if (moe !== null && !(NUM_RE.test(moeRaw) && moe > 0 && moe <= 50)) c.add(i, 'moe', 'bad_moe', `moe "${f.moe ?? ''}" must be empty or a number of points above 0 and at most 50`);
-    const sponsorType = (f.sponsor_type ?? '').toLowerCase();
+    if (moe !== null && !(NUM_RE.test(moeRaw) && moe > 0 && moe <= 50)) c.add(i, 'moe', 'bad_moe', `moe "${moeText}" must be empty or a number of points above 0 and at most 50`);
+    const sponsorType = f('sponsor_type').toLowerCase();
     if (sponsorType && !(SPONSOR_TYPES as readonly string[]).includes(sponsorType)) c.add(i, 'sponsor_type', 'bad_sponsor_type', `sponsor_type "${sponsorType}" must be one of ${SPONSOR_TYPES.join(', ')}`);
-    for (const u of ['source_url', 'tables_url'] as const) if (f[u] && !isUrl(f[u]!)) c.add(i, u, 'bad_url', `${u} "${f[u]}" must be an http(s) URL`);
+    const sourceUrl = f('source_url');
+    const tablesUrl = f('tables_url');
+    if (sourceUrl && !isUrl(sourceUrl)) c.add(i, 'source_url', 'bad_url', `source_url "${sourceUrl}" must be an http(s) URL`);
+    if (tablesUrl && !isUrl(tablesUrl)) c.add(i, 'tables_url', 'bad_url', `tables_url "${tablesUrl}" must be an http(s) URL`);
     const bools: Record<string, boolean> = {};
     for (const b of ['is_headline', 'tracking', 'question_wording', 'weighting_statement'] as const) {
-      const v = parseBool(f[b] ?? '');
-      if (v === null) c.add(i, b, 'bad_boolean', `${b} "${f[b]}" must be yes/no, true/false or 1/0`);
-      bools[b] = b === 'is_headline' ? (f[b] ? Boolean(v) : true) : Boolean(v);
+      const raw = f(b);
+      const v = parseBool(raw);
+      if (v === null) c.add(i, b, 'bad_boolean', `${b} "${raw}" must be yes/no, true/false or 1/0`);
+      bools[b] = b === 'is_headline' ? (raw ? Boolean(v) : true) : Boolean(v);
     }
     let sum = 0;
-    for (const [key, s] of d.shares) {
-      sum += s.share;
-      if (contest && !contest.options.has(key) && !(RESERVED_OPTION_KEYS as readonly string[]).includes(key)) {
-        c.add(s.index, 'option_key', 'unknown_option', `option ${key} is not an option of contest ${f.contest_key} (nor undecided/other)`);
+    const s = d.shares;
+    for (let j = 0; j < s.length; j += 3) {
+      const key = s[j] as string;
+      sum += s[j + 1] as number;
+      if (contest && !contest.options.has(key) && !reservedOption.has(key)) {
+        c.add(s[j + 2] as number, 'option_key', 'unknown_option', `option ${key} is not an option of contest ${contestKey} (nor undecided/other)`);
       }
     }
-    if (d.shares.size === 0) c.add(i, 'share', 'no_shares', `poll ${d.key} has no shares`);
-    if (sum > 100.5) c.add(d.indexes[d.indexes.length - 1]!, 'share', 'sum_over_100', `shares of poll ${d.key} sum to ${round3(sum)}, past 100.5`);
-    if (c.badRows.size !== before || d.indexes.some((x) => c.badRows.has(x))) continue;
+    if (s.length === 0) c.add(i, 'share', 'no_shares', `poll ${d.key} has no shares`);
+    if (sum > 100.5) c.add(d.lastIndex, 'share', 'sum_over_100', `shares of poll ${d.key} sum to ${round3(sum)}, past 100.5`);
+    if (c.badRows.size !== before || anyBad(d, c.badRows)) continue;
+    const questionWording = f('question_wording');
     clean.push({
-      key: d.key, indexes: d.indexes, pollster: f.pollster!, sponsor: f.sponsor || null,
+      key: d.key, draft: d, pollster, sponsor: f('sponsor') || null,
       sponsorType: (sponsorType || null) as SponsorType | null, contestId: contest!.id, fieldworkStart: start, fieldworkEnd: end,
       publishedOn: pub, sampleSize: Number(n), population: population as Population, mode: mode as Mode, moe,
-      studyKey: f.study_key || null, isHeadline: bools.is_headline!, tracking: bools.tracking!, sourceUrl: f.source_url || null,
-      questionWording: bools.question_wording! || Boolean(f.question_wording && isUrl(f.question_wording)),
-      weightingStatement: bools.weighting_statement!, tablesUrl: f.tables_url || null,
-      shares: [...d.shares].map(([k, v]) => [k, v.share]),
+      studyKey: f('study_key') || null, isHeadline: bools.is_headline!, tracking: bools.tracking!, sourceUrl: sourceUrl || null,
+      questionWording: bools.question_wording! || Boolean(questionWording && isUrl(questionWording)),
+      weightingStatement: bools.weighting_statement!, tablesUrl: tablesUrl || null,
     });
   }
   // Polls whose rows were flagged after they were accepted (e.g. a later duplicate row).
-  const usable = clean.filter((p) => !p.indexes.some((x) => c.badRows.has(x)));
+  const usable = clean.filter((p) => !anyBad(p.draft, c.badRows));
 
   // Pollsters: names and aliases, matched on a normalised form.
+  const normalized = memo(normalizeName);
   const pollsterRows = await sequelize.query<{ id: number; name: string }>('SELECT id, name FROM pollsters', { type: QueryTypes.SELECT });
   const aliasRows = await sequelize.query<{ pollster_id: number; normalized: string }>('SELECT pollster_id, normalized FROM pollster_aliases', { type: QueryTypes.SELECT });
   const firmByNorm = new Map<string, number>();
@@ -210,19 +309,19 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
   const newNames = new Map<string, string>(); // normalised → display name
   const mappedAliases: { norm: string; alias: string; id: number }[] = [];
   for (const p of usable) {
-    const norm = normalizeName(p.pollster);
+    const norm = normalized(p.pollster);
     if (firmByNorm.has(norm) || newNames.has(norm)) continue;
     const mapped = opts.pollsterMap?.[p.pollster];
     if (mapped !== undefined) {
       if (!knownIds.has(mapped)) {
-        c.add(p.indexes[0]!, 'pollster', 'unknown_pollster_id', `pollster "${p.pollster}" is mapped to firm ${mapped}, which does not exist`);
+        c.add(p.draft.firstIndex, 'pollster', 'unknown_pollster_id', `pollster "${p.pollster}" is mapped to firm ${mapped}, which does not exist`);
         continue;
       }
       firmByNorm.set(norm, mapped);
       mappedAliases.push({ norm, alias: p.pollster, id: mapped });
     } else newNames.set(norm, p.pollster);
   }
-  const finalPolls = usable.filter((p) => !p.indexes.some((x) => c.badRows.has(x)));
+  const finalPolls = usable.filter((p) => !anyBad(p.draft, c.badRows));
 
   // Existing polls (for upsert counts), set-based.
   const existing = new Map<string, { id: number; sig: string }>();
@@ -253,13 +352,13 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
     fieldworkEnd: p.fieldworkEnd, publishedOn: p.publishedOn, sampleSize: p.sampleSize, population: p.population, mode: p.mode, moe: p.moe,
     studyKey: p.studyKey, isHeadline: p.isHeadline, tracking: p.tracking, sourceUrl: p.sourceUrl, questionWording: p.questionWording,
     weightingStatement: p.weightingStatement, tablesUrl: p.tablesUrl,
-    shares: [...p.shares].sort((a, b) => (a[0] < b[0] ? -1 : 1)).map(([k, v]) => `${k}=${round3(v)}`).join(';'),
+    shares: sharesOf(p.draft).sort((a, b) => (a[0] < b[0] ? -1 : 1)).map(([k, v]) => `${k}=${round3(v)}`).join(';'),
   });
   let created = 0;
   let unchanged = 0;
   const toWrite: CleanPoll[] = [];
-  const updatedIds: number[] = [];
-  const updatedSet = new Set<number>();
+  /** Id of each poll in `toWrite` that already exists (an update); new polls are absent. */
+  const updatedIdOf = new Map<CleanPoll, number>();
   for (const p of finalPolls) {
     const e = existing.get(p.key);
     if (!e) {
@@ -267,17 +366,16 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
       toWrite.push(p);
       continue;
     }
-    const firm = firmByNorm.get(normalizeName(p.pollster)) ?? null;
+    const firm = firmByNorm.get(normalized(p.pollster)) ?? null;
     if (firm !== null && sigOf(p, firm) === e.sig) unchanged++;
     else {
       toWrite.push(p);
-      updatedIds.push(e.id);
-      updatedSet.add(e.id);
+      updatedIdOf.set(p, e.id);
     }
   }
-  const updated = updatedIds.length;
+  const updated = updatedIdOf.size;
   const skipped = drafts.size - finalPolls.length;
-  const base = { rows: csv.rows.length, created, updated, unchanged, skipped, errors: c.errors, validOnly: Boolean(opts.validOnly), newPollsters: [...newNames.values()] };
+  const base = { rows: rowCount, created, updated, unchanged, skipped, errors: c.errors, validOnly: Boolean(opts.validOnly), newPollsters: [...newNames.values()] };
 
   if (hasErrors && !opts.validOnly) {
     const failed = { ...base, created: 0, updated: 0, unchanged: 0, skipped: drafts.size };
@@ -312,34 +410,82 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
     const sponsorIds = new Map(
       (await sequelize.query<{ id: number; name: string }>('SELECT id, name FROM sponsors', { type: QueryTypes.SELECT, transaction })).map((s) => [s.name, s.id]),
     );
-    // Polls, then their shares.
-    let batch = 0;
-    for (const part of chunk(toWrite, 5000)) {
-      await sequelize.query(
-        `INSERT INTO polls (\`key\`, pollster_id, sponsor_id, contest_id, fieldwork_start, fieldwork_end, published_on, sample_size, population, mode, moe,
-           study_key, is_headline, tracking, source_url, question_wording, weighting_statement, tables_url, import_id) VALUES ${part
-          .map((p) => `(${[p.key, firmByNorm.get(normalizeName(p.pollster)), p.sponsor ? sponsorIds.get(p.sponsor) : null, p.contestId, p.fieldworkStart, p.fieldworkEnd,
-            p.publishedOn, p.sampleSize, p.population, p.mode, p.moe, p.studyKey, p.isHeadline, p.tracking, p.sourceUrl, p.questionWording,
-            p.weightingStatement, p.tablesUrl, importId].map((v) => sqlValue(esc, v)).join(',')})`)
-          .join(',')}
-         ON DUPLICATE KEY UPDATE pollster_id = VALUES(pollster_id), sponsor_id = VALUES(sponsor_id), contest_id = VALUES(contest_id),
+
+    /**
+     * One poll as a VALUES tuple. Keys match KEY_RE, dates are checked YYYY-MM-DD and population
+     * and mode are from fixed lists, so only sponsor-free text (study key, URLs) needs escaping.
+     */
+    const tuple = (p: CleanPoll) => {
+      const firm = firmByNorm.get(normalized(p.pollster));
+      const sponsorId = p.sponsor ? sponsorIds.get(p.sponsor) : undefined;
+      return `('${p.key}',${firm ?? 'NULL'},${sponsorId ?? 'NULL'},${p.contestId},'${p.fieldworkStart}','${p.fieldworkEnd}','${p.publishedOn}',${p.sampleSize},'${p.population}','${p.mode}',${
+        p.moe === null ? 'NULL' : String(p.moe)},${p.studyKey === null ? 'NULL' : esc(p.studyKey)},${p.isHeadline ? 1 : 0},${p.tracking ? 1 : 0},${
+        p.sourceUrl === null ? 'NULL' : esc(p.sourceUrl)},${p.questionWording ? 1 : 0},${p.weightingStatement ? 1 : 0},${p.tablesUrl === null ? 'NULL' : esc(p.tablesUrl)},${importId})`;
+    };
+    const insertPolls = 'INSERT INTO polls (`key`, pollster_id, sponsor_id, contest_id, fieldwork_start, fieldwork_end, published_on, sample_size, population, mode, moe, study_key, is_headline, tracking, source_url, question_wording, weighting_statement, tables_url, import_id) VALUES ';
+    const upsertTail = ` ON DUPLICATE KEY UPDATE pollster_id = VALUES(pollster_id), sponsor_id = VALUES(sponsor_id), contest_id = VALUES(contest_id),
            fieldwork_start = VALUES(fieldwork_start), fieldwork_end = VALUES(fieldwork_end), published_on = VALUES(published_on),
            sample_size = VALUES(sample_size), population = VALUES(population), mode = VALUES(mode), moe = VALUES(moe), study_key = VALUES(study_key),
            is_headline = VALUES(is_headline), tracking = VALUES(tracking), source_url = VALUES(source_url), question_wording = VALUES(question_wording),
-           weighting_statement = VALUES(weighting_statement), tables_url = VALUES(tables_url), import_id = VALUES(import_id), updated_at = NOW(3)`,
-        { transaction },
-      );
-      const ids = new Map(
-        (await sequelize.query<{ id: number; key: string }>('SELECT id, `key` FROM polls WHERE `key` IN (:keys)', {
-          replacements: { keys: part.map((p) => p.key) }, type: QueryTypes.SELECT, transaction,
-        })).map((r) => [r.key, r.id]),
-      );
-      const replaced = part.map((p) => ids.get(p.key)!).filter((id) => updatedSet.has(id));
-      if (replaced.length) await sequelize.query('DELETE FROM poll_shares WHERE poll_id IN (:ids)', { replacements: { ids: replaced }, transaction });
+           weighting_statement = VALUES(weighting_statement), tables_url = VALUES(tables_url), import_id = VALUES(import_id), updated_at = NOW(3)`;
+    const selectIds = async (keys: string[]) => new Map(
+      (await sequelize.query<{ id: number; key: string }>('SELECT id, `key` FROM polls WHERE `key` IN (:keys)', {
+        replacements: { keys }, type: QueryTypes.SELECT, transaction,
+      })).map((r) => [r.key, r.id]),
+    );
+    // A simple multi-row INSERT takes consecutive ids in row order when InnoDB hands them out
+    // under the "consecutive" (1) or "traditional" (0) lock mode with an increment of 1.
+    const [autoinc] = await sequelize.query<{ mode: number | string; inc: number | string }>(
+      'SELECT @@innodb_autoinc_lock_mode AS mode, @@auto_increment_increment AS inc', { type: QueryTypes.SELECT, transaction },
+    );
+    const consecutiveIds = Number(autoinc?.mode) <= 1 && Number(autoinc?.inc) === 1;
+
+    /**
+     * Inserts polls that did not exist and returns their ids. The ids come from the statement's
+     * first insert id, after checking that exactly these keys, in this order, hold the id range;
+     * otherwise (and when a key was inserted meanwhile) they are read back by key.
+     */
+    const insertNew = async (fresh: CleanPoll[]): Promise<Map<string, number>> => {
+      const values = fresh.map(tuple).join(',');
+      let firstId: number;
+      try {
+        const [id] = await sequelize.query(insertPolls + values, { type: QueryTypes.INSERT, transaction });
+        firstId = Number(id);
+      } catch (err) {
+        if ((err as { parent?: { errno?: number } }).parent?.errno !== ER_DUP_ENTRY) throw err;
+        await sequelize.query(insertPolls + values + upsertTail, { transaction });
+        return selectIds(fresh.map((p) => p.key));
+      }
+      if (consecutiveIds && Number.isSafeInteger(firstId) && firstId > 0) {
+        const keys = fresh.map((p) => p.key).join(',');
+        const [check] = await sequelize.query<{ n: number | string; digest: string | null }>(
+          "SELECT COUNT(*) AS n, MD5(GROUP_CONCAT(`key` ORDER BY id SEPARATOR ',')) AS digest FROM polls WHERE id BETWEEN :first AND :last AND import_id = :importId",
+          { replacements: { first: firstId, last: firstId + fresh.length - 1, importId }, type: QueryTypes.SELECT, transaction },
+        );
+        if (Number(check?.n) === fresh.length && check?.digest === createHash('md5').update(keys).digest('hex')) {
+          return new Map(fresh.map((p, j) => [p.key, firstId + j]));
+        }
+      }
+      return selectIds(fresh.map((p) => p.key));
+    };
+
+    // Polls, then their shares.
+    let batch = 0;
+    for (const part of chunk(toWrite, 5000)) {
+      const fresh = part.filter((p) => !updatedIdOf.has(p));
+      const changed = part.filter((p) => updatedIdOf.has(p));
+      const ids = fresh.length ? await insertNew(fresh) : new Map<string, number>();
+      if (changed.length) {
+        await sequelize.query(insertPolls + changed.map(tuple).join(',') + upsertTail, { transaction });
+        for (const p of changed) ids.set(p.key, updatedIdOf.get(p)!);
+        await sequelize.query('DELETE FROM poll_shares WHERE poll_id IN (:ids)', { replacements: { ids: changed.map((p) => updatedIdOf.get(p)!) }, transaction });
+      }
       const shareRows: string[] = [];
       for (const p of part) {
         const id = ids.get(p.key)!;
-        for (const [k, v] of p.shares) shareRows.push(`(${id},${esc(k)},${round3(v)})`);
+        // Option keys match KEY_RE: quoted as they are.
+        const s = p.draft.shares;
+        for (let j = 0; j < s.length; j += 3) shareRows.push(`(${id},'${s[j] as string}',${round3(s[j + 1] as number)})`);
       }
       for (const rows of chunk(shareRows, 20000)) {
         await sequelize.query(`INSERT INTO poll_shares (poll_id, option_key, share) VALUES ${rows.join(',')}`, { transaction });
