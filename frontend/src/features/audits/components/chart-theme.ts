@@ -1,12 +1,6 @@
 import { buildChartTheme } from '@visx/xychart';
 import { useMemo } from 'react';
-
-/** The palette tokens of index.css as concrete colours, so exported SVGs keep them. */
-function token(name: string, fallback: string): string {
-  if (typeof document === 'undefined') return fallback;
-  const value = getComputedStyle(document.documentElement).getPropertyValue(`--color-${name}`).trim();
-  return value || fallback;
-}
+import { paletteColor as token } from '../../../lib/palette';
 
 export interface ChartColors {
   mark: string;

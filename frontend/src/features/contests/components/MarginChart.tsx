@@ -3,6 +3,7 @@ import { useId, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { useChartExport } from '../../../components/charts';
 import { Alert, Button, DataTable, createDataTableColumnHelper } from '../../../components/ui';
+import { paletteColor as token } from '../../../lib/palette';
 import { paths } from '../../../lib/paths';
 import { formatDate } from '../../../utils/format';
 import { downloadCsv, toCsv, type CsvColumn } from '../../../lib/csv';
@@ -13,12 +14,6 @@ import type { MarginPoint } from '../margins';
 interface LinePoint {
   date: Date;
   margin: number;
-}
-
-/** The palette tokens of index.css, read at run time so that the chart uses the app's colours. */
-function token(name: string): string {
-  if (typeof window === 'undefined') return 'currentColor';
-  return window.getComputedStyle(document.documentElement).getPropertyValue(`--color-${name}`).trim() || 'currentColor';
 }
 
 function chartTheme() {
