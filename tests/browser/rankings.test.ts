@@ -49,8 +49,11 @@ describe('ranking, filters, firm page and a chart download in chromium', () => {
     expect(phoneFirms.length).toBeGreaterThan(0);
     expect(phoneFirms.length).toBeLessThan(allFirms.length);
 
-    await page.getByLabel('Phone', { exact: true }).check();
+    // The checkbox reflects the page address, which updates a moment after the click: click once and
+    // wait for the address rather than asking playwright to see the box change at once.
+    await page.getByLabel('Phone', { exact: true }).click();
     await page.waitForURL((url) => url.searchParams.get('modes') === 'phone');
+    await expect.poll(() => page.getByLabel('Phone', { exact: true }).isChecked()).toBe(true);
     await page.getByText(`${phoneFirms.length} firms listed.`).waitFor();
     await page.getByRole('table', { name: 'Pollster ranking' }).locator('tbody tr').nth(phoneFirms.length - 1).waitFor();
     const filtered = await firmNames(page);
