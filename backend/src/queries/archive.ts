@@ -68,7 +68,9 @@ export async function loadPolls(s: Sequelize, where: { contestIds?: number[]; po
     conds.push('p.`key` IN (:keys)');
   }
   const rows = await s.query<Record<string, unknown>>(
-    `SELECT p.*, f.name AS pollster_name, sp.name AS sponsor_name, sp.type AS sponsor_type FROM polls p
+    `SELECT p.id, p.\`key\`, p.pollster_id, p.contest_id, p.fieldwork_start, p.fieldwork_end, p.published_on, p.sample_size, p.population, p.mode, p.moe,
+       p.study_key, p.is_headline, p.tracking, p.source_url, p.question_wording, p.weighting_statement, p.tables_url,
+       f.name AS pollster_name, sp.name AS sponsor_name, sp.type AS sponsor_type FROM polls p
      JOIN pollsters f ON f.id = p.pollster_id LEFT JOIN sponsors sp ON sp.id = p.sponsor_id
      ${conds.length ? `WHERE ${conds.join(' AND ')}` : ''} ORDER BY p.fieldwork_end, p.\`key\``,
     { replacements: where, type: QueryTypes.SELECT },
