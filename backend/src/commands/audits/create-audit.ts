@@ -4,7 +4,8 @@ import { CORE_VERSION } from '../../analysis/version';
 import { unprocessable } from '../../http/errors';
 import { computeAuditPolls, headline, scorecardsFor, seedOf, sharedErrorsFor } from './compute';
 import { loadAuditInputs } from './inputs';
-import { auditPartInsert, checkStatementSize } from './parts';
+import { decodeAuditPoll, encodeAuditPoll } from './stored-polls';
+import { auditPartInsert, checkStatementSize, sqlText } from './parts';
 
 /** Rows of one `INSERT INTO audit_polls` stop growing past this many characters (at most 3 bytes each: well below 16 MiB). */
 const POLL_CHUNK_CHARS = 4 * 1024 * 1024;
@@ -56,21 +57,21 @@ async function computeAudit(sequelize: Sequelize, settings: AuditSettings) {
 
 /** The scorecards' INSERT, then each election's analysis INSERT; each computed only when asked for. */
 function* partStatements(sequelize: Sequelize, auditId: number, items: readonly AuditPollDto[], settings: AuditSettings, elections: readonly string[], seed: number) {
-  yield auditPartInsert(sequelize, auditId, 'scorecards', '', JSON.stringify(scorecardsFor(items, settings, seed)));
+  yield auditPartInsert(auditId, 'scorecards', '', JSON.stringify(scorecardsFor(items, settings, seed)));
   let n = 0;
   for (const analysis of sharedErrorsFor(items, settings, elections)) {
-    yield auditPartInsert(sequelize, auditId, 'shared_error', elections[n++]!, JSON.stringify(analysis));
+    yield auditPartInsert(auditId, 'shared_error', elections[n++]!, JSON.stringify(analysis));
   }
 }
 
 /** The per-poll INSERTs, each of about POLL_CHUNK_CHARS, built only when asked for. */
 function* pollStatements(sequelize: Sequelize, auditId: number, items: readonly AuditPollDto[]) {
-  const esc = (v: string) => sequelize.escape(v);
+  const esc = sqlText;
   const head = 'INSERT INTO audit_polls (audit_id, poll_key, election_key, contest_key, pollster_id, in_window, is_final, abs_margin_error, metrics) VALUES ';
   let rows: string[] = [];
   let chars = head.length;
   for (const i of items) {
-    const row = `(${auditId},${esc(i.pollKey)},${esc(i.electionKey)},${esc(i.contestKey)},${i.pollsterId},${i.inWindow ? 1 : 0},${i.isFinal ? 1 : 0},${i.absMarginError ?? 'NULL'},${esc(JSON.stringify(i))})`;
+    const row = `(${auditId},${esc(i.pollKey)},${esc(i.electionKey)},${esc(i.contestKey)},${i.pollsterId},${i.inWindow ? 1 : 0},${i.isFinal ? 1 : 0},${i.absMarginError ?? 'NULL'},${esc(encodeAuditPoll(i))})`;
     if (rows.length && chars + row.length + 1 > POLL_CHUNK_CHARS) {
       yield checkStatementSize(head + rows.join(','), 'A chunk of per-poll rows');
       rows = [];
@@ -125,5 +126,5 @@ export async function loadAuditPolls(sequelize: Sequelize, auditId: number, elec
     `SELECT metrics FROM audit_polls WHERE audit_id = :auditId ${electionKey ? 'AND election_key = :electionKey' : ''} ORDER BY election_key, contest_key, poll_key`,
     { replacements: { auditId, electionKey }, type: QueryTypes.SELECT },
   );
-  return rows.map((r) => JSON.parse(r.metrics) as AuditPollDto);
+  return rows.map((r) => decodeAuditPoll(r.metrics));
 }

@@ -23,9 +23,18 @@ export function checkStatementSize(sql: string, what: string): string {
   return sql;
 }
 
+/**
+ * A string as a quoted SQL literal. Only the backslash, the quote and NUL need escaping inside
+ * single quotes (a raw newline or double quote is literal text there); JSON text has no other
+ * control characters, so this escapes far less than a general escape and sends fewer bytes.
+ */
+export function sqlText(v: string): string {
+  return `'${v.replace(/[\\'\0]/g, (c) => (c === '\0' ? '\\0' : `\\${c}`))}'`;
+}
+
 /** The INSERT of one part (its payload is already JSON). */
-export function auditPartInsert(sequelize: Sequelize, auditId: number, kind: AuditPartKind, partKey: string, payload: string): string {
-  const sql = `INSERT INTO audit_parts (audit_id, kind, part_key, payload) VALUES (${auditId}, ${sequelize.escape(kind)}, ${sequelize.escape(partKey)}, ${sequelize.escape(payload)})`;
+export function auditPartInsert(auditId: number, kind: AuditPartKind, partKey: string, payload: string): string {
+  const sql = `INSERT INTO audit_parts (audit_id, kind, part_key, payload) VALUES (${auditId}, ${sqlText(kind)}, ${sqlText(partKey)}, ${sqlText(payload)})`;
   return checkStatementSize(sql, kind === 'scorecards' ? 'The scorecards' : `The shared-error analysis of ${partKey}`);
 }
 
