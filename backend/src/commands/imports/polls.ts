@@ -445,8 +445,7 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
      * first insert id, after checking that exactly these keys, in this order, hold the id range;
      * otherwise (and when a key was inserted meanwhile) they are read back by key.
      */
-    const insertNew = async (fresh: CleanPoll[]): Promise<Map<string, number>> => {
-      const values = fresh.map(tuple).join(',');
+    const insertNew = async (fresh: CleanPoll[], values: string): Promise<Map<string, number>> => {
       let firstId: number;
       try {
         const [id] = await sequelize.query(insertPolls + values, { type: QueryTypes.INSERT, transaction });
@@ -469,14 +468,27 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
       return selectIds(fresh.map((p) => p.key));
     };
 
-    // Polls, then their shares.
-    let batch = 0;
-    for (const part of chunk(toWrite, 5000)) {
+    /** A batch split into new and existing polls, with their VALUES lists built. */
+    const prepare = (part: CleanPoll[]) => {
       const fresh = part.filter((p) => !updatedIdOf.has(p));
       const changed = part.filter((p) => updatedIdOf.has(p));
-      const ids = fresh.length ? await insertNew(fresh) : new Map<string, number>();
+      return { part, fresh, changed, freshValues: fresh.map(tuple).join(','), changedValues: changed.map(tuple).join(',') };
+    };
+    /** Lets a statement just handed to the connector go out before a long synchronous step. */
+    const yieldToIo = () => new Promise<void>((resolve) => setImmediate(resolve));
+
+    // Polls, then their shares, batch by batch. The next batch's VALUES are built while the
+    // server writes this batch's shares.
+    const parts = chunk(toWrite, 5000);
+    let next = parts.length ? prepare(parts[0]!) : null;
+    let batch = 0;
+    while (next) {
+      const { part, fresh, changed, freshValues, changedValues } = next;
+      const following = parts[batch + 1];
+      next = null;
+      const ids = fresh.length ? await insertNew(fresh, freshValues) : new Map<string, number>();
       if (changed.length) {
-        await sequelize.query(insertPolls + changed.map(tuple).join(',') + upsertTail, { transaction });
+        await sequelize.query(insertPolls + changedValues + upsertTail, { transaction });
         for (const p of changed) ids.set(p.key, updatedIdOf.get(p)!);
         await sequelize.query('DELETE FROM poll_shares WHERE poll_id IN (:ids)', { replacements: { ids: changed.map((p) => updatedIdOf.get(p)!) }, transaction });
       }
@@ -487,10 +499,19 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
         const s = p.draft.shares;
         for (let j = 0; j < s.length; j += 3) shareRows.push(`(${id},'${s[j] as string}',${round3(s[j + 1] as number)})`);
       }
-      for (const rows of chunk(shareRows, 20000)) {
-        await sequelize.query(`INSERT INTO poll_shares (poll_id, option_key, share) VALUES ${rows.join(',')}`, { transaction });
+      const statements = chunk(shareRows, 20000).map((rows) => `INSERT INTO poll_shares (poll_id, option_key, share) VALUES ${rows.join(',')}`);
+      for (let k = 0; k < statements.length; k++) {
+        const running = sequelize.query(statements[k]!, { transaction });
+        if (k === statements.length - 1 && following) {
+          running.catch(() => undefined); // awaited just below; a failure must not count as unhandled meanwhile
+          await yieldToIo();
+          next = prepare(following);
+        }
+        await running;
       }
-      await opts.afterBatch?.(++batch);
+      if (!next && following) next = prepare(following);
+      batch++;
+      await opts.afterBatch?.(batch);
     }
     return importId;
   });
