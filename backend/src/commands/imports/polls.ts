@@ -136,6 +136,22 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
     return share > 100 ? 'over' : share;
   });
 
+  // A poll's first row is kept: its per-poll cells share one string per distinct value (dates,
+  // firms, contests, modes repeat), up to a few thousand values a column.
+  const interned = fieldCol.map(() => new Map<string, string>());
+  const keepCells = (cells: string[]) => {
+    for (let j = 0; j < fieldCol.length; j++) {
+      const col = fieldCol[j]!;
+      const v = col < 0 ? undefined : cells[col];
+      if (v === undefined || v === '') continue;
+      const seen = interned[j]!;
+      const same = seen.get(v);
+      if (same !== undefined) cells[col] = same;
+      else if (seen.size < 5000) seen.set(v, v);
+    }
+    return cells;
+  };
+
   let rowCount: number;
   if (layout === 'long') {
     requireColumns(headers, POLL_COLUMNS);
@@ -146,7 +162,7 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
       if (!key) return c.add(index, 'poll_key', 'required', 'poll_key is required');
       let d = drafts.get(key);
       if (!d) {
-        d = { key, firstIndex: index, lastIndex: index, scattered: null, cells, shares: [] };
+        d = { key, firstIndex: index, lastIndex: index, scattered: null, cells: keepCells(cells), shares: [] };
         drafts.set(key, d);
       } else {
         for (let j = 0; j < fieldCol.length; j++) {
@@ -176,7 +192,7 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
       if (!key) return c.add(index, 'poll_key', 'required', 'poll_key is required');
       const seen = drafts.get(key);
       if (seen) return c.add(index, 'poll_key', 'duplicate_key', `poll ${key} appears twice in a wide file (first on row ${csv.lineOf(seen.firstIndex)})`);
-      const d: PollDraft = { key, firstIndex: index, lastIndex: index, scattered: null, cells, shares: [] };
+      const d: PollDraft = { key, firstIndex: index, lastIndex: index, scattered: null, cells: keepCells(cells), shares: [] };
       drafts.set(key, d);
       for (const o of optionColumns) {
         const raw = cells[o.i] ?? '';
