@@ -1,3 +1,4 @@
+import { isUtf8 } from 'node:buffer';
 import Papa from 'papaparse';
 import type { ImportRowError } from '@veracast/shared-types';
 
@@ -69,26 +70,27 @@ function guessNewline(text: string): '\n' | '\r\n' | '\r' {
  * papaparse whole, so its quoting errors are reported before anything else.
  */
 export function openCsv(buffer: Buffer): CsvReader {
-  let text: string;
-  try {
-    text = new TextDecoder('utf-8', { fatal: true }).decode(buffer);
-  } catch {
-    throw new ImportFileError('not_utf8', 'The file is not UTF-8 text; save it as CSV UTF-8 and try again');
-  }
-  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
-  const firstLine = text.slice(0, text.search(/\r?\n|$/));
-  const delimiter = (firstLine.match(/;/g)?.length ?? 0) > (firstLine.match(/,/g)?.length ?? 0) ? ';' : ',';
+  if (!isUtf8(buffer)) throw new ImportFileError('not_utf8', 'The file is not UTF-8 text; save it as CSV UTF-8 and try again');
+  // The decoder drops one byte order mark and the reader one more, as a whole-file decode would.
+  let start = 0;
+  for (let k = 0; k < 2 && buffer[start] === 0xef && buffer[start + 1] === 0xbb && buffer[start + 2] === 0xbf; k++) start += 3;
 
-  if (!text.includes('"')) {
-    const newline = text.includes('\r') ? guessNewline(text) : '\n';
-    const len = text.length;
-    let pos = 0;
+  if (buffer.indexOf(0x22, start) === -1) {
+    // No quote character: lines are decoded one at a time from the bytes (a line ending is ASCII,
+    // never part of a multi-byte character), so the whole file never exists as one string.
+    const firstNl = buffer.indexOf(0x0a, start);
+    let firstLine = buffer.toString('utf8', start, firstNl === -1 ? buffer.length : firstNl);
+    if (firstNl !== -1 && firstLine.endsWith('\r')) firstLine = firstLine.slice(0, -1);
+    const delimiter = (firstLine.match(/;/g)?.length ?? 0) > (firstLine.match(/,/g)?.length ?? 0) ? ';' : ',';
+    const newline = buffer.indexOf(0x0d, start) === -1 ? '\n' : guessNewline(buffer.toString('utf8', start, Math.min(buffer.length, start + 4 * 1024 * 1024 + 4)));
+    const len = buffer.length;
+    let pos = start;
     /** The next line (as `text.split(newline)` would give it), or null past the end. */
     const nextLine = (): string | null => {
       if (pos > len) return null;
-      let end = text.indexOf(newline, pos);
+      let end = buffer.indexOf(newline, pos);
       if (end === -1) end = len;
-      const line = text.slice(pos, end);
+      const line = buffer.toString('utf8', pos, end);
       pos = end + newline.length;
       return line;
     };
@@ -115,6 +117,9 @@ export function openCsv(buffer: Buffer): CsvReader {
     };
   }
 
+  const text = buffer.toString('utf8', start);
+  const firstLine = text.slice(0, text.search(/\r?\n|$/));
+  const delimiter = (firstLine.match(/;/g)?.length ?? 0) > (firstLine.match(/,/g)?.length ?? 0) ? ';' : ',';
   const parsed = Papa.parse<string[]>(text, { delimiter, skipEmptyLines: 'greedy' });
   const fatal = parsed.errors.find((e) => e.type === 'Quotes');
   if (fatal) {
