@@ -8,7 +8,7 @@ import { decodeAuditPoll, encodeAuditPoll } from './stored-polls';
 import { auditPartInsert, checkStatementSize, sqlText } from './parts';
 
 /** Rows of one `INSERT INTO audit_polls` stop growing past this many characters (at most 3 bytes each: well below 16 MiB). */
-const POLL_CHUNK_CHARS = 4 * 1024 * 1024;
+const POLL_CHUNK_CHARS = 2 * 1024 * 1024;
 
 /**
  * Creates a frozen audit: reads the chosen elections set-based, computes every poll's metrics,
@@ -17,7 +17,7 @@ const POLL_CHUNK_CHARS = 4 * 1024 * 1024;
  *
  * Storage: the audit row (settings, headline), one `audit_parts` row for the scorecards and one
  * per election for its shared-error analysis (each its own INSERT), and the per-poll rows in
- * INSERTs of about 4 MiB: no statement comes near the connector's 16 MiB limit. Statements are
+ * INSERTs of about 2 MiB: no statement comes near the connector's 16 MiB limit. Statements are
  * built lazily, one sent while the next is built, and the per-poll chunks alternate with the
  * analyses so that the server writes rows while the next analysis is computed.
  */
@@ -37,7 +37,7 @@ export async function createAudit(sequelize: Sequelize, name: string, settings: 
     const auditId = Number(id);
     const parts = partStatements(sequelize, auditId, items, settings, elections, seed);
     const polls = pollStatements(sequelize, auditId, items);
-    await sendInTurn(sequelize, alternate(polls, parts), transaction);
+    await sendInTurn(sequelize, alternate(polls, parts, 2), transaction);
     return { id: auditId, dataHash, pollCount: items.length };
   });
 }
@@ -83,8 +83,8 @@ function* pollStatements(sequelize: Sequelize, auditId: number, items: readonly 
   if (rows.length) yield checkStatementSize(head + rows.join(','), 'A chunk of per-poll rows');
 }
 
-/** One from each in turn until both are exhausted. */
-function* alternate<T>(a: Iterator<T>, b: Iterator<T>) {
+/** One from `a`, then `perA` from `b`, in turn until both are exhausted. */
+function* alternate<T>(a: Iterator<T>, b: Iterator<T>, perA: number) {
   let doneA = false;
   let doneB = false;
   while (!doneA || !doneB) {
@@ -93,7 +93,7 @@ function* alternate<T>(a: Iterator<T>, b: Iterator<T>) {
       if (x.done) doneA = true;
       else yield x.value;
     }
-    if (!doneB) {
+    for (let k = 0; k < perA && !doneB; k++) {
       const y = b.next();
       if (y.done) doneB = true;
       else yield y.value;
@@ -101,22 +101,35 @@ function* alternate<T>(a: Iterator<T>, b: Iterator<T>) {
   }
 }
 
+/** Characters of statements queued on the connection at once while the next ones are built. */
+const QUEUED_CHARS = 16 * 1024 * 1024;
+
 /**
- * Sends the statements in order on the transaction's connection, building the next one (the
- * JavaScript work behind it) while the server runs the previous one.
+ * Sends the statements in order on the transaction's connection, keeping up to QUEUED_CHARS of
+ * them queued (the connector runs them one after another) while the JavaScript behind the next
+ * one runs, and yielding to the event loop after each so that the queued ones are written out
+ * and the server works while the next analysis is computed.
  */
 async function sendInTurn(sequelize: Sequelize, statements: Iterable<string>, transaction: Transaction) {
-  let pending: Promise<unknown> | null = null;
+  const queued: { done: Promise<unknown>; chars: number }[] = [];
+  let chars = 0;
   try {
     for (const sql of statements) {
-      if (pending) await pending;
-      pending = sequelize.query(sql, { transaction });
-      // Rejections are awaited below; this only keeps one in flight from counting as unhandled.
-      pending.catch(() => undefined);
+      while (queued.length && chars + sql.length > QUEUED_CHARS) {
+        const first = queued.shift()!;
+        chars -= first.chars;
+        await first.done;
+      }
+      const done = sequelize.query(sql, { transaction });
+      // Rejections are awaited in order; this only keeps the queued ones from counting as unhandled.
+      done.catch(() => undefined);
+      queued.push({ done, chars: sql.length });
+      chars += sql.length;
+      await new Promise((resolve) => setImmediate(resolve));
     }
-    if (pending) await pending;
+    while (queued.length) await queued.shift()!.done;
   } catch (err) {
-    if (pending) await pending.catch(() => undefined);
+    await Promise.allSettled(queued.map((q) => q.done));
     throw err;
   }
 }
