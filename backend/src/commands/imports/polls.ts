@@ -458,8 +458,8 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
 
     /**
      * Inserts polls that did not exist and returns their ids. The ids come from the statement's
-     * first insert id, after checking that exactly these keys, in this order, hold the id range;
-     * otherwise (and when a key was inserted meanwhile) they are read back by key.
+     * first insert id, after checking that the batch's first and last keys hold the two ends of
+     * the id range; otherwise (and when a key was inserted meanwhile) they are read back by key.
      */
     const insertNew = async (fresh: CleanPoll[], values: string): Promise<Map<string, number>> => {
       let firstId: number;
@@ -472,12 +472,16 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
         return selectIds(fresh.map((p) => p.key));
       }
       if (consecutiveIds && Number.isSafeInteger(firstId) && firstId > 0) {
-        const keys = fresh.map((p) => p.key).join(',');
-        const [check] = await sequelize.query<{ n: number | string; digest: string | null }>(
-          "SELECT COUNT(*) AS n, MD5(GROUP_CONCAT(`key` ORDER BY id SEPARATOR ',')) AS digest FROM polls WHERE id BETWEEN :first AND :last AND import_id = :importId",
-          { replacements: { first: firstId, last: firstId + fresh.length - 1, importId }, type: QueryTypes.SELECT, transaction },
+        // Ids of one statement grow in row order, so n distinct ids whose first and last rows hold
+        // first and first + n - 1 are exactly that range.
+        const firstKey = fresh[0]!.key;
+        const lastKey = fresh[fresh.length - 1]!.key;
+        const ends = new Map(
+          (await sequelize.query<{ id: number; key: string }>('SELECT id, `key` FROM polls WHERE `key` IN (:keys)', {
+            replacements: { keys: [firstKey, lastKey] }, type: QueryTypes.SELECT, transaction,
+          })).map((r) => [r.key, Number(r.id)]),
         );
-        if (Number(check?.n) === fresh.length && check?.digest === createHash('md5').update(keys).digest('hex')) {
+        if (ends.get(firstKey) === firstId && ends.get(lastKey) === firstId + fresh.length - 1) {
           return new Map(fresh.map((p, j) => [p.key, firstId + j]));
         }
       }
