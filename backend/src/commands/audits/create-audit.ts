@@ -18,8 +18,9 @@ const POLL_CHUNK_CHARS = 2 * 1024 * 1024;
  * Storage: the audit row (settings, headline), one `audit_parts` row for the scorecards and one
  * per election for its shared-error analysis (each its own INSERT), and the per-poll rows in
  * INSERTs of about 2 MiB: no statement comes near the connector's 16 MiB limit. Statements are
- * built lazily, one sent while the next is built, and the per-poll chunks alternate with the
- * analyses so that the server writes rows while the next analysis is computed.
+ * built lazily (one chunk or one analysis at a time, so their text is never all alive at once),
+ * a chunk of per-poll rows then two analyses in turn, so that the server writes rows while the
+ * next analyses are computed.
  */
 export async function createAudit(sequelize: Sequelize, name: string, settings: AuditSettings, userId: number | null, rerunOf: number | null = null) {
   const { items, summary, elections, dataHash, seed } = await computeAudit(sequelize, settings);
@@ -35,8 +36,8 @@ export async function createAudit(sequelize: Sequelize, name: string, settings: 
       },
     );
     const auditId = Number(id);
-    const parts = partStatements(sequelize, auditId, items, settings, elections, seed);
-    const polls = pollStatements(sequelize, auditId, items);
+    const parts = partStatements(auditId, items, settings, elections, seed);
+    const polls = pollStatements(auditId, items);
     await sendInTurn(sequelize, alternate(polls, parts, 2), transaction);
     return { id: auditId, dataHash, pollCount: items.length };
   });
@@ -56,7 +57,7 @@ async function computeAudit(sequelize: Sequelize, settings: AuditSettings) {
 }
 
 /** The scorecards' INSERT, then each election's analysis INSERT; each computed only when asked for. */
-function* partStatements(sequelize: Sequelize, auditId: number, items: readonly AuditPollDto[], settings: AuditSettings, elections: readonly string[], seed: number) {
+function* partStatements(auditId: number, items: readonly AuditPollDto[], settings: AuditSettings, elections: readonly string[], seed: number) {
   yield auditPartInsert(auditId, 'scorecards', '', JSON.stringify(scorecardsFor(items, settings, seed)));
   let n = 0;
   for (const analysis of sharedErrorsFor(items, settings, elections)) {
@@ -65,7 +66,7 @@ function* partStatements(sequelize: Sequelize, auditId: number, items: readonly 
 }
 
 /** The per-poll INSERTs, each of about POLL_CHUNK_CHARS, built only when asked for. */
-function* pollStatements(sequelize: Sequelize, auditId: number, items: readonly AuditPollDto[]) {
+function* pollStatements(auditId: number, items: readonly AuditPollDto[]) {
   const esc = sqlText;
   const head = 'INSERT INTO audit_polls (audit_id, poll_key, election_key, contest_key, pollster_id, in_window, is_final, abs_margin_error, metrics) VALUES ';
   let rows: string[] = [];
