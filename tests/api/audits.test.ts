@@ -122,6 +122,7 @@ describe('frozen audits', () => {
     const a = await audit('raw');
     await expect(t.ctx.sequelize.query(`UPDATE audits SET name = 'tampered' WHERE id = ${a.id}`)).rejects.toThrow(/frozen/);
     await expect(t.ctx.sequelize.query(`UPDATE audit_polls SET metrics = '{}' WHERE audit_id = ${a.id}`)).rejects.toThrow(/frozen/);
+    await expect(t.ctx.sequelize.query(`UPDATE audit_parts SET payload = '{}' WHERE audit_id = ${a.id}`)).rejects.toThrow(/frozen/);
   });
 
   it('says out of date after a result changes, keeps its numbers, and a re-run makes a new audit', async () => {
