@@ -47,8 +47,8 @@ export const up: Migration['up'] = async ({ context: q }) => {
     comments: { type: DataTypes.TEXT, allowNull: true },
     created_at: now,
   });
-  await q.addConstraint('notes', { type: 'foreign key', fields: ['current_version_id'], name: 'notes_current_version_fk', references: { table: 'note_versions', field: 'id' }, onDelete: 'SET NULL' });
-  await q.addConstraint('notes', { type: 'foreign key', fields: ['published_version_id'], name: 'notes_published_version_fk', references: { table: 'note_versions', field: 'id' }, onDelete: 'SET NULL' });
+  await q.addConstraint('notes', { type: 'foreign key', fields: ['current_version_id'], name: 'notes_current_version_fk', references: { table: 'note_versions', field: 'id' }, onDelete: 'SET NULL', onUpdate: 'CASCADE' });
+  await q.addConstraint('notes', { type: 'foreign key', fields: ['published_version_id'], name: 'notes_published_version_fk', references: { table: 'note_versions', field: 'id' }, onDelete: 'SET NULL', onUpdate: 'CASCADE' });
   // Versions and review decisions are append-only: what was published, or said in a review, stays as it was.
   await q.sequelize.query(`CREATE TRIGGER note_versions_append_only BEFORE UPDATE ON note_versions FOR EACH ROW
     SIGNAL SQLSTATE '45000' SET MESSAGE_TEXT = 'note versions are append-only'`);
