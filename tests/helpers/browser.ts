@@ -58,9 +58,6 @@ export async function startBrowserApp(options: { demo?: boolean } = {}): Promise
     async signedInPage(role) {
       const email = `${role}-${Date.now()}-${++n}@browser.test`;
       const password = `browser-${role}-password`;
-      if (role === 'admin' && n === 1) {
-        // The first admin exists already.
-      }
       await UserModel.create({ email, name: `Browser ${role}`, role, passwordHash: await hashPassword(password) });
       const page = await newPage();
       await signIn(page, email, password);

@@ -74,9 +74,8 @@ export async function createTestApp(overrides: Record<string, string> = {}): Pro
   async function signIn(role: Role): Promise<SignedInAgent> {
     const { user, email, password } = await createUser(role);
     const agent = request.agent(app);
-    const res = await agent.post('/api/v1/auth/login').send({ email, password }).expect(200);
+    await agent.post('/api/v1/auth/login').send({ email, password }).expect(200);
     const csrf = (await agent.get('/api/v1/auth/csrf').expect(200)).body.csrfToken as string;
-    void res;
     return {
       user,
       csrf,

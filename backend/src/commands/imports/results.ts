@@ -157,7 +157,8 @@ export async function importResults(sequelize: Sequelize, buffer: Buffer, opts: 
   const existingOptions = existingContests.length ? await OptionModel.findAll({ where: { contestId: existingContests.map((k) => k.id) } }) : [];
   const optionByKey = new Map(existingOptions.map((o) => [`${o.contestId}\u0000${o.key}`, o]));
 
-  const contestChanges = new Map<string, { before: unknown; after: unknown }>();
+  /** Certified contests the file changes, with their state before the change. */
+  const contestChanges = new Map<string, { before: unknown }>();
   for (const r of rows) {
     const existing = contestByKey.get(r.contestKey);
     if (!existing || c.badRows.has(r.index)) continue;
@@ -174,7 +175,7 @@ export async function importResults(sequelize: Sequelize, buffer: Buffer, opts: 
       if (changed) {
         if (!canCertify) c.add(r.index, 'votes', 'role_required', `contest ${r.contestKey} is certified; changing it needs the reviewer role`);
         else if (!opts.reason?.trim()) c.add(r.index, 'votes', 'reason_required', `contest ${r.contestKey} is certified; changing it needs a reason`);
-        const entry = contestChanges.get(r.contestKey) ?? { before: snapshot(existing, existingOptions), after: null };
+        const entry = contestChanges.get(r.contestKey) ?? { before: snapshot(existing, existingOptions) };
         contestChanges.set(r.contestKey, entry);
       }
     }

@@ -36,7 +36,7 @@ export function authRouter(ctx: AppContext) {
     res.json({ user: presentUser(user), csrfToken: csrfTokenFor(ctx, sessionId) });
   });
 
-  router.post('/logout', (req, res) => {
+  router.post('/logout', (_req, res) => {
     res.clearCookie(SESSION_COOKIE, { ...sessionCookieOptions(ctx), maxAge: undefined });
     res.status(204).end();
   });
