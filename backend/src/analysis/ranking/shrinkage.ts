@@ -3,7 +3,7 @@
  * firm means (METHODS §6–7).
  */
 import { sum } from 'simple-statistics';
-import { chiSquareUpperP } from '../distributions';
+import { derSimonianLaird as sharedDerSimonianLaird } from '../shared-error/dersimonian-laird';
 import { MetricInputError, requireFinite, requirePositive } from '../errors';
 import { requireArray, requireNonNegative } from './validate';
 
@@ -48,36 +48,9 @@ export interface DerSimonianLairdResult {
  * derSimonianLaird([2.1, -0.5, 3.4, 1.2, 0.8], [1.0, 1.5, 0.8, 2.0, 1.2]).tau2; // → 1.143996… (METHODS §6)
  */
 export function derSimonianLaird(y: readonly number[], v: readonly number[]): DerSimonianLairdResult {
-  requireArray('y', y, 2);
-  y.forEach((x, i) => requireFinite(`y[${i}]`, x));
-  requireArray('v', v, 0);
-  if (v.length !== y.length) throw new MetricInputError('v', 'must have the same length as y');
-  v.forEach((x, i) => requirePositive(`v[${i}]`, x));
-
-  const k = y.length;
-  const w = v.map((vi) => 1 / vi);
-  const sw = sum(w);
-  const muFE = sum(w.map((wi, i) => wi * (y[i] as number))) / sw;
-  const Q = sum(w.map((wi, i) => wi * ((y[i] as number) - muFE) ** 2));
-  const C = sw - sum(w.map((wi) => wi * wi)) / sw;
-  const df = k - 1;
-  const tau2 = Math.max(0, (Q - df) / C);
-  const wStar = v.map((vi) => 1 / (vi + tau2));
-  const swStar = sum(wStar);
-  const muRE = sum(wStar.map((wi, i) => wi * (y[i] as number))) / swStar;
-  return {
-    k,
-    Q,
-    df,
-    pQ: chiSquareUpperP(Q, df),
-    C,
-    tau2,
-    muFE,
-    seFE: Math.sqrt(1 / sw),
-    muRE,
-    seRE: Math.sqrt(1 / swStar),
-    I2: Q > 0 ? Math.max(0, (Q - df) / Q) : 0,
-  };
+  // One implementation serves both cores: the shared-error one, under this core's field names.
+  const r = sharedDerSimonianLaird(y, v);
+  return { k: r.k, Q: r.q, df: r.df, pQ: r.qP, C: r.c, tau2: r.tau2, muFE: r.muFE, seFE: r.seFE, muRE: r.muRE, seRE: r.seRE, I2: r.i2 };
 }
 
 /**
