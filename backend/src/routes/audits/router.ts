@@ -43,9 +43,11 @@ export function auditsRouter(ctx: AppContext) {
 
   async function present(row: AuditRow, checkCurrent: boolean): Promise<AuditDto> {
     const settings = JSON.parse(row.settings) as AuditSettings;
-    const elections = await loadElections(s, { keys: settings.electionKeys });
-    const contests = await loadContests(s, { electionIds: elections.map((e) => e.id) });
-    const currentHash = checkCurrent ? (await loadAuditInputs(s, settings.electionKeys)).dataHash : null;
+    // Checking currency reads every input row anyway: take the elections and contests from that read.
+    const current = checkCurrent ? await loadAuditInputs(s, settings.electionKeys) : null;
+    const elections = current?.elections ?? (await loadElections(s, { keys: settings.electionKeys }));
+    const contests = current?.contests ?? (await loadContests(s, { electionIds: elections.map((e) => e.id) }));
+    const currentHash = current?.dataHash ?? null;
     return {
       id: row.id, name: row.name, settings, dataHash: row.data_hash, coreVersion: row.core_version, pollCount: row.poll_count,
       createdAt: new Date(row.created_at).toISOString(), createdBy: row.created_by, rerunOf: row.rerun_of_id,
