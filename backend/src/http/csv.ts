@@ -22,13 +22,15 @@ export function toCsv(rows: readonly Record<string, unknown>[], columns?: readon
 
 export const wantsCsv = (req: Request) => req.query.format === 'csv';
 
+/** Answers rows as a CSV download (UTF-8 with a BOM, so spreadsheets read the accents). */
+export function sendCsv(res: Response, rows: readonly object[], filename: string, columns?: readonly string[]) {
+  res.type('text/csv; charset=utf-8');
+  res.setHeader('Content-Disposition', `attachment; filename="${filename.replace(/[^A-Za-z0-9_.-]/g, '_')}.csv"`);
+  res.send('\uFEFF' + toCsv(rows as readonly Record<string, unknown>[], columns));
+}
+
 /** Answers a list as `{ items, total }`, or as CSV when `?format=csv`. */
 export function sendList(req: Request, res: Response, items: readonly object[], opts: { total?: number; filename?: string; columns?: readonly string[]; extra?: Record<string, unknown> } = {}) {
-  if (wantsCsv(req)) {
-    res.type('text/csv; charset=utf-8');
-    res.setHeader('Content-Disposition', `attachment; filename="${(opts.filename ?? 'export').replace(/[^A-Za-z0-9_.-]/g, '_')}.csv"`);
-    res.send('\uFEFF' + toCsv(items as readonly Record<string, unknown>[], opts.columns));
-    return;
-  }
+  if (wantsCsv(req)) return sendCsv(res, items, opts.filename ?? 'export', opts.columns);
   res.json({ items, total: opts.total ?? items.length, ...opts.extra });
 }

@@ -4,7 +4,7 @@ import { auditCreateSchema, PARTISAN_SPONSOR_TYPES, type AuditDto, type AuditPol
 import { currentUser, requireRole } from '../../http/auth';
 import { notFound } from '../../http/errors';
 import { parse } from '../../http/validate';
-import { sendList, wantsCsv, toCsv } from '../../http/csv';
+import { sendCsv, sendList, wantsCsv } from '../../http/csv';
 import { idParam } from '../../http/params';
 import { createAudit, loadAuditPolls } from '../../commands/audits/create-audit';
 import { loadAuditInputs } from '../../commands/audits/inputs';
@@ -76,8 +76,8 @@ export function auditsRouter(ctx: AppContext) {
       id: r.id, name: r.name, settings: JSON.parse(r.settings) as AuditSettings, dataHash: r.data_hash, coreVersion: r.core_version, pollCount: r.poll_count,
       createdAt: new Date(r.created_at).toISOString(), createdBy: r.created_by, rerunOf: r.rerun_of_id,
     }));
-    if (wantsCsv(req)) sendList(req, res, items.map((i) => ({ ...i, settings: JSON.stringify(i.settings) })), { filename: 'audits' });
-    else sendList(req, res, items, { filename: 'audits' });
+    // In CSV the settings object becomes its JSON text (neutraliseCell does that for objects).
+    sendList(req, res, items, { filename: 'audits' });
   });
 
   router.get('/:id', requireRole('viewer'), async (req, res) => {
@@ -125,9 +125,8 @@ export function auditsRouter(ctx: AppContext) {
       result = scorecardsFor(items, { ...settings, minPolls: q.minPolls ?? settings.minPolls }, seedOf(row.data_hash));
     }
     if (wantsCsv(req)) {
-      res.type('text/csv; charset=utf-8').setHeader('Content-Disposition', `attachment; filename="audit-${row.id}-scorecards.csv"`);
-      res.send('\uFEFF' + toCsv(result.items.map((i) => ({ ...i, excessErrorInterval: i.excessErrorInterval?.join(' to '), rankInterval: i.rankInterval?.join(' to ') })) as Record<string, unknown>[]));
-      return;
+      const rows = result.items.map((i) => ({ ...i, excessErrorInterval: i.excessErrorInterval?.join(' to '), rankInterval: i.rankInterval?.join(' to ') }));
+      return sendCsv(res, rows, `audit-${row.id}-scorecards`);
     }
     res.json({ ...result, total: result.items.length, filtered: Boolean(filtered) });
   });
@@ -138,12 +137,7 @@ export function auditsRouter(ctx: AppContext) {
     const stored = await loadStoredSharedErrors<{ contestsDetail: object[]; pairs: object[] }>(s, row.id, [q.election]);
     const analysis = stored[q.election];
     if (!analysis) throw notFound(`Election ${q.election} in this audit`);
-    if (wantsCsv(req)) {
-      const rows = (q.part === 'pairs' ? analysis.pairs : analysis.contestsDetail) as Record<string, unknown>[];
-      res.type('text/csv; charset=utf-8').setHeader('Content-Disposition', `attachment; filename="audit-${row.id}-${q.election}-${q.part ?? 'contests'}.csv"`);
-      res.send('\uFEFF' + toCsv(rows));
-      return;
-    }
+    if (wantsCsv(req)) return sendCsv(res, q.part === 'pairs' ? analysis.pairs : analysis.contestsDetail, `audit-${row.id}-${q.election}-${q.part ?? 'contests'}`);
     res.json(analysis);
   });
 
