@@ -1,5 +1,6 @@
 import type { QualityIssueDto } from '@veracast/shared-types';
 import type { ContestRow, ElectionRow, PollRow } from './archive';
+import { groupBy } from './group-by';
 
 const overlap = (a: PollRow, b: PollRow) => a.fieldworkStart <= b.fieldworkEnd && b.fieldworkStart <= a.fieldworkEnd;
 const sharesEqual = (a: PollRow, b: PollRow, tol = 0.5) => {
@@ -28,10 +29,8 @@ export function qualityIssues(elections: readonly ElectionRow[], contests: reado
     }
   }
 
-  const byFirmContest = new Map<string, PollRow[]>();
+  const byFirmContest = groupBy(polls, (p) => `${p.pollsterId}\u0000${p.contestId}`);
   for (const p of polls) {
-    const k = `${p.pollsterId}\u0000${p.contestId}`;
-    byFirmContest.set(k, [...(byFirmContest.get(k) ?? []), p]);
     const sum = Object.values(p.shares).reduce((a, b) => a + b, 0);
     if (sum < 95 || sum > 100.5) {
       const c = contestById.get(p.contestId);
@@ -60,8 +59,7 @@ export function qualityIssues(elections: readonly ElectionRow[], contests: reado
       }
     }
   }
-  const studies = new Map<string, PollRow[]>();
-  for (const p of polls) if (p.studyKey) studies.set(`${p.pollsterId}\u0000${p.studyKey}`, [...(studies.get(`${p.pollsterId}\u0000${p.studyKey}`) ?? []), p]);
+  const studies = groupBy(polls.filter((p) => p.studyKey), (p) => `${p.pollsterId}\u0000${p.studyKey}`);
   for (const versions of studies.values()) {
     if (versions.length > 1 && versions.filter((v) => v.isHeadline).length !== 1) {
       const c = contestById.get(versions[0]!.contestId);

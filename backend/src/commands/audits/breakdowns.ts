@@ -3,6 +3,7 @@ import { MetricInputError } from '../../analysis/errors';
 import { breakdowns, clusteredMean, DAYS_OUT_BINS, SAMPLE_SIZE_BINS, samplingFunnel, tInterval, UNDECIDED_BINS, type Breakdown } from '../../analysis/ranking';
 import { historicalAverageInterval, qqPoints, tooCloseToCall } from '../../analysis/shared-error';
 import type { ElectionRow } from '../../queries/archive';
+import { groupBy } from '../../queries/group-by';
 import { usedPolls } from './compute';
 
 type Computable = AuditPollDto & { marginError: number; absMarginError: number };
@@ -26,6 +27,7 @@ const safe = <T,>(f: () => T): T | null => {
 export function auditBreakdowns(items: readonly AuditPollDto[], settings: AuditSettings, partisan: readonly string[]) {
   const all = computable(items);
   const used = computable(usedPolls(items, settings));
+  const usedSet = new Set(used);
   const polls = asBreakdownPolls(used);
   const categorical = (key: (p: Computable) => string) => safe(() => breakdowns(polls, { kind: 'categorical', key }));
   // Numeric bins also carry their bounds (min included, max excluded; null for an open end).
@@ -51,7 +53,7 @@ export function auditBreakdowns(items: readonly AuditPollDto[], settings: AuditS
   return {
     usedPolls: used.length,
     daysOut: {
-      points: all.map((p) => ({ pollKey: p.pollKey, pollster: p.pollster, daysOut: p.daysOut, signedError: p.marginError, absError: p.absMarginError, used: used.includes(p) })),
+      points: all.map((p) => ({ pollKey: p.pollKey, pollster: p.pollster, daysOut: p.daysOut, signedError: p.marginError, absError: p.absMarginError, used: usedSet.has(p) })),
       bins: numeric(asBreakdownPolls(all), (p) => p.daysOut, DAYS_OUT_BINS),
     },
     population: categorical((p) => p.population),
@@ -77,8 +79,7 @@ export function auditBreakdowns(items: readonly AuditPollDto[], settings: AuditS
  */
 export function auditHistory(items: readonly AuditPollDto[], settings: AuditSettings, elections: readonly ElectionRow[]) {
   const used = computable(usedPolls(items, settings)).filter((p) => p.resultA !== null && p.resultB !== null);
-  const contests = new Map<string, Computable[]>();
-  for (const p of used) contests.set(p.contestKey, [...(contests.get(p.contestKey) ?? []), p]);
+  const contests = groupBy(used, (p) => p.contestKey);
   const averages = [...contests.entries()].map(([contestKey, ps]) => {
     const miss = ps.reduce((a, p) => a + p.marginError, 0) / ps.length;
     const certified = ps[0]!.resultA! - ps[0]!.resultB!;
