@@ -104,7 +104,14 @@ app_env() {
   export PORT="${PORT:-8080}"
 }
 
+# Builds the web client unless frontend/dist is newer than every source it is built from.
 build_frontend() {
+  local stamp="$ROOT/frontend/dist/index.html"
+  if [ -f "$stamp" ] && [ -z "$(find "$ROOT/frontend/src" "$ROOT/frontend/index.html" "$ROOT/frontend/vite.config.ts" \
+      "$ROOT/frontend/package.json" "$ROOT/shared-types/src" "$ROOT/package-lock.json" -newer "$stamp" -print -quit 2>/dev/null)" ]; then
+    log "web client is up to date"
+    return 0
+  fi
   log "building the web client"
   (cd "$ROOT" && npm run build --silent -w frontend >/dev/null)
 }
