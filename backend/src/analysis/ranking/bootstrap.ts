@@ -220,9 +220,38 @@ export function bootstrapRanks(
   }
   for (const list of entries) for (const e of list) e.total = sum(e.ds);
 
+  // The same entries, flat (firm fi's are entryFrom[fi] … entryFrom[fi + 1] − 1; entry e's d_j
+  // values are dFrom[e] … dFrom[e + 1] − 1), so each draw reads typed arrays in the same order
+  // and does the same arithmetic as over the lists above.
+  const entryFrom = new Int32Array(firms.length + 1);
+  let entryCount = 0;
+  let dCount = 0;
+  entries.forEach((list, fi) => {
+    entryFrom[fi] = entryCount;
+    entryCount += list.length;
+    for (const e of list) dCount += e.ds.length;
+  });
+  entryFrom[firms.length] = entryCount;
+  const entryContest = new Int32Array(entryCount);
+  const entryTotal = new Float64Array(entryCount);
+  const dFrom = new Int32Array(entryCount + 1);
+  const dValues = new Float64Array(dCount);
+  let e = 0;
+  let k = 0;
+  for (const list of entries) {
+    for (const entry of list) {
+      entryContest[e] = entry.contest;
+      entryTotal[e] = entry.total;
+      dFrom[e] = k;
+      for (const d of entry.ds) dValues[k++] = d;
+      e++;
+    }
+  }
+  dFrom[entryCount] = k;
+
   const G = contestKeys.length;
   const rng = seedrandom(String(seed));
-  const multiplicity = new Array<number>(G).fill(0);
+  const multiplicity = new Int32Array(G);
   const tally = new RankTally(firms.length);
   const excessDraws: number[][] = firms.map(() => []);
   const shrunkDraws: number[][] = firms.map(() => []);
@@ -236,25 +265,27 @@ export function bootstrapRanks(
     }
     const present: number[] = [];
     const summaries: { mean: number; n: number; ss: number }[] = [];
-    firms.forEach((_, fi) => {
+    for (let fi = 0; fi < firms.length; fi += 1) {
+      const from = entryFrom[fi] as number;
+      const to = entryFrom[fi + 1] as number;
       let n = 0;
       let total = 0;
-      for (const e of entries[fi] as { contest: number; ds: number[]; total: number }[]) {
-        const m = multiplicity[e.contest] as number;
-        n += m * e.ds.length;
-        total += m * e.total;
+      for (let x = from; x < to; x += 1) {
+        const m = multiplicity[entryContest[x] as number] as number;
+        n += m * ((dFrom[x + 1] as number) - (dFrom[x] as number));
+        total += m * (entryTotal[x] as number);
       }
-      if (n === 0) return;
+      if (n === 0) continue;
       const mean = total / n;
       let ss = 0;
-      for (const e of entries[fi] as { contest: number; ds: number[]; total: number }[]) {
-        const m = multiplicity[e.contest] as number;
-        if (m > 0) for (const d of e.ds) ss += m * (d - mean) ** 2;
+      for (let x = from; x < to; x += 1) {
+        const m = multiplicity[entryContest[x] as number] as number;
+        if (m > 0) for (let y = dFrom[x] as number, end = dFrom[x + 1] as number; y < end; y += 1) ss += m * ((dValues[y] as number) - mean) ** 2;
       }
       present.push(fi);
       summaries.push({ mean, n, ss });
       (excessDraws[fi] as number[]).push(mean);
-    });
+    }
     let stats = summaries.map((s) => s.mean);
     if (statistic === 'shrunk') {
       stats = shrinkFirmMeans(summaries, mu).firms.map((f) => f.shrunk);

@@ -1,26 +1,23 @@
-import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { QueryTypes, type Sequelize } from 'sequelize';
 import type { AuditPollDto, AuditSettings } from '@veracast/shared-types';
 import { CORE_VERSION } from '../../analysis/version';
 import { unprocessable } from '../../http/errors';
 import { computeAuditPolls, headline, scorecardsFor, seedOf, sharedErrorsFor } from './compute';
 import { loadAuditInputs } from './inputs';
-import { decodeAuditPoll, encodeAuditPoll } from './stored-polls';
-import { auditPartInsert, checkStatementSize, sqlText } from './parts';
-
-/** Rows of one `INSERT INTO audit_polls` stop growing past this many characters (at most 3 bytes each: well below 16 MiB). */
-const POLL_CHUNK_CHARS = 2 * 1024 * 1024;
+import { withConnection } from '../../db/raw';
+import { encodePollChunk } from './stored-polls';
+import { loadStoredPolls, POLLS_PER_CHUNK, storeParts, type PartText } from './parts';
 
 /**
  * Creates a frozen audit: reads the chosen elections set-based, computes every poll's metrics,
  * the headline, the scorecards (seeded from the data hash) and the shared-error analysis per
- * election, and stores them with the settings, the data hash and the core's version.
+ * election, and stores them with the settings, the data hash and the core's version, in one
+ * transaction.
  *
- * Storage: the audit row (settings, headline), one `audit_parts` row for the scorecards and one
- * per election for its shared-error analysis (each its own INSERT), and the per-poll rows in
- * INSERTs of about 2 MiB: no statement comes near the connector's 16 MiB limit. Statements are
- * built lazily (one chunk or one analysis at a time, so their text is never all alive at once),
- * a chunk of per-poll rows then two analyses in turn, so that the server writes rows while the
- * next analyses are computed.
+ * Storage (see parts.ts): the audit row (settings, headline), then compressed parts — each
+ * election's poll rows in chunks, the scorecards, each election's shared-error analysis. Parts are
+ * produced one at a time; each is compressed on the thread pool and written while the next one is
+ * computed, so the server's writes and the compression overlap the analyses.
  */
 export async function createAudit(sequelize: Sequelize, name: string, settings: AuditSettings, userId: number | null, rerunOf: number | null = null) {
   const { items, summary, elections, dataHash, seed } = await computeAudit(sequelize, settings);
@@ -36,9 +33,7 @@ export async function createAudit(sequelize: Sequelize, name: string, settings: 
       },
     );
     const auditId = Number(id);
-    const parts = partStatements(auditId, items, settings, elections, seed);
-    const polls = pollStatements(auditId, items);
-    await sendInTurn(sequelize, alternate(polls, parts, 2), transaction);
+    await withConnection(sequelize, transaction, (c) => storeParts(c, auditId, auditParts(items, settings, elections, seed)));
     return { id: auditId, dataHash, pollCount: items.length };
   });
 }
@@ -56,89 +51,30 @@ async function computeAudit(sequelize: Sequelize, settings: AuditSettings) {
   return { items, summary, elections: inputs.elections.map((e) => e.key), dataHash: inputs.dataHash, seed: seedOf(inputs.dataHash) };
 }
 
-/** The scorecards' INSERT, then each election's analysis INSERT; each computed only when asked for. */
-function* partStatements(auditId: number, items: readonly AuditPollDto[], settings: AuditSettings, elections: readonly string[], seed: number) {
-  yield auditPartInsert(auditId, 'scorecards', '', JSON.stringify(scorecardsFor(items, settings, seed)));
+/**
+ * Every part of the audit, each computed only when asked for: the poll rows of each election in
+ * chunks (contest key, then poll key), then the scorecards, then each election's shared-error
+ * analysis.
+ */
+function* auditParts(items: readonly AuditPollDto[], settings: AuditSettings, elections: readonly string[], seed: number): Generator<PartText> {
+  const byElection = new Map<string, AuditPollDto[]>(elections.map((k) => [k, []]));
+  for (const i of items) byElection.get(i.electionKey)?.push(i);
+  for (const [electionKey, polls] of byElection) {
+    polls.sort((a, b) => compare(a.contestKey, b.contestKey) || compare(a.pollKey, b.pollKey));
+    for (let start = 0, chunk = 0; start < polls.length; start += POLLS_PER_CHUNK, chunk++) {
+      yield { kind: 'polls', partKey: electionKey, chunk, json: encodePollChunk(polls.slice(start, start + POLLS_PER_CHUNK)) };
+    }
+  }
+  yield { kind: 'scorecards', partKey: '', chunk: 0, json: JSON.stringify(scorecardsFor(items, settings, seed)) };
   let n = 0;
   for (const analysis of sharedErrorsFor(items, settings, elections)) {
-    yield auditPartInsert(auditId, 'shared_error', elections[n++]!, JSON.stringify(analysis));
+    yield { kind: 'shared_error', partKey: elections[n++]!, chunk: 0, json: JSON.stringify(analysis) };
   }
 }
 
-/** The per-poll INSERTs, each of about POLL_CHUNK_CHARS, built only when asked for. */
-function* pollStatements(auditId: number, items: readonly AuditPollDto[]) {
-  const esc = sqlText;
-  const head = 'INSERT INTO audit_polls (audit_id, poll_key, election_key, contest_key, pollster_id, in_window, is_final, abs_margin_error, metrics) VALUES ';
-  let rows: string[] = [];
-  let chars = head.length;
-  for (const i of items) {
-    const row = `(${auditId},${esc(i.pollKey)},${esc(i.electionKey)},${esc(i.contestKey)},${i.pollsterId},${i.inWindow ? 1 : 0},${i.isFinal ? 1 : 0},${i.absMarginError ?? 'NULL'},${esc(encodeAuditPoll(i))})`;
-    if (rows.length && chars + row.length + 1 > POLL_CHUNK_CHARS) {
-      yield checkStatementSize(head + rows.join(','), 'A chunk of per-poll rows');
-      rows = [];
-      chars = head.length;
-    }
-    rows.push(row);
-    chars += row.length + 1;
-  }
-  if (rows.length) yield checkStatementSize(head + rows.join(','), 'A chunk of per-poll rows');
-}
+const compare = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
 
-/** One from `a`, then `perA` from `b`, in turn until both are exhausted. */
-function* alternate<T>(a: Iterator<T>, b: Iterator<T>, perA: number) {
-  let doneA = false;
-  let doneB = false;
-  while (!doneA || !doneB) {
-    if (!doneA) {
-      const x = a.next();
-      if (x.done) doneA = true;
-      else yield x.value;
-    }
-    for (let k = 0; k < perA && !doneB; k++) {
-      const y = b.next();
-      if (y.done) doneB = true;
-      else yield y.value;
-    }
-  }
-}
-
-/** Characters of statements queued on the connection at once while the next ones are built. */
-const QUEUED_CHARS = 16 * 1024 * 1024;
-
-/**
- * Sends the statements in order on the transaction's connection, keeping up to QUEUED_CHARS of
- * them queued (the connector runs them one after another) while the JavaScript behind the next
- * one runs, and yielding to the event loop after each so that the queued ones are written out
- * and the server works while the next analysis is computed.
- */
-async function sendInTurn(sequelize: Sequelize, statements: Iterable<string>, transaction: Transaction) {
-  const queued: { done: Promise<unknown>; chars: number }[] = [];
-  let chars = 0;
-  try {
-    for (const sql of statements) {
-      while (queued.length && chars + sql.length > QUEUED_CHARS) {
-        const first = queued.shift()!;
-        chars -= first.chars;
-        await first.done;
-      }
-      const done = sequelize.query(sql, { transaction });
-      // Rejections are awaited in order; this only keeps the queued ones from counting as unhandled.
-      done.catch(() => undefined);
-      queued.push({ done, chars: sql.length });
-      chars += sql.length;
-      await new Promise((resolve) => setImmediate(resolve));
-    }
-    while (queued.length) await queued.shift()!.done;
-  } catch (err) {
-    await Promise.allSettled(queued.map((q) => q.done));
-    throw err;
-  }
-}
-
-export async function loadAuditPolls(sequelize: Sequelize, auditId: number, electionKey?: string): Promise<AuditPollDto[]> {
-  const rows = await sequelize.query<{ metrics: string }>(
-    `SELECT metrics FROM audit_polls WHERE audit_id = :auditId ${electionKey ? 'AND election_key = :electionKey' : ''} ORDER BY election_key, contest_key, poll_key`,
-    { replacements: { auditId, electionKey }, type: QueryTypes.SELECT },
-  );
-  return rows.map((r) => decodeAuditPoll(r.metrics));
+/** The audit's per-poll rows (of one election when `electionKey` is given), by election, contest and poll key. */
+export function loadAuditPolls(sequelize: Sequelize, auditId: number, electionKey?: string): Promise<AuditPollDto[]> {
+  return loadStoredPolls(sequelize, auditId, electionKey);
 }

@@ -1,54 +1,127 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { promisify } from 'node:util';
+import { gunzipSync, gzip, constants as zlib } from 'node:zlib';
+import type { Sequelize } from 'sequelize';
+import type { AuditPollDto } from '@veracast/shared-types';
+import { rawRows, type RawConnection } from '../../db/raw';
+import { decodeAuditPoll, decodePollChunk } from './stored-polls';
 
 /**
- * An audit's large stored results live in `audit_parts` (migration 20261202000500), one row per
- * part: the scorecards (kind 'scorecards', part key '') and each election's shared-error analysis
- * (kind 'shared_error', part key = election key). Audits stored before that table kept them in
- * `audits.scorecards` / `audits.shared_error`; the readers here fall back to those columns.
+ * An audit's stored results live in `audit_parts` (migrations 20261202000500 and …0600), one row
+ * per part and chunk:
+ * - 'polls': the per-poll rows, part key = election key, chunks 0, 1, … of POLLS_PER_CHUNK rows;
+ * - 'scorecards': part key '', chunk 0;
+ * - 'shared_error': part key = election key, chunk 0.
+ * Payloads are JSON text, stored gzip-compressed (`encoding` 'gzip') by audits from this version
+ * on; parts written before are plain JSON ('json'). Audits stored before audit_parts kept their
+ * analyses in `audits.scorecards` / `audits.shared_error` and their poll rows in `audit_polls`;
+ * the readers here fall back to those.
  */
-export type AuditPartKind = 'scorecards' | 'shared_error';
+export type AuditPartKind = 'polls' | 'scorecards' | 'shared_error';
+
+/** Poll rows per stored chunk (~0.9 MB of JSON, ~0.15 MB compressed). */
+export const POLLS_PER_CHUNK = 2000;
 
 /**
  * The largest statement an audit sends. MariaDB connector 3.0.2 fails intermittently on
  * statements over 16 MiB; this keeps a margin below that.
  */
 export const MAX_STATEMENT_BYTES = 15 * 1024 * 1024;
+/** Compressed payload bytes gathered into one multi-row INSERT. */
+const BATCH_BYTES = 4 * 1024 * 1024;
 
-/** Throws a plain error, before anything is sent, when a statement would be too large. */
-export function checkStatementSize(sql: string, what: string): string {
-  const bytes = Buffer.byteLength(sql);
-  if (bytes > MAX_STATEMENT_BYTES) {
-    throw new Error(`${what} is too large to store in one statement (${(bytes / 1024 / 1024).toFixed(1)} MiB; at most ${MAX_STATEMENT_BYTES / 1024 / 1024} MiB)`);
+/** One part as JSON text, before it is compressed and stored. */
+export interface PartText {
+  kind: AuditPartKind;
+  partKey: string;
+  chunk: number;
+  json: string;
+}
+
+interface PartRow {
+  kind: AuditPartKind;
+  partKey: string;
+  chunk: number;
+  payload: Buffer;
+}
+
+const gzipAsync = promisify(gzip);
+
+/** gzip at level 1: JSON of numbers shrinks about 5-fold and the compression runs at ~100 MB/s. */
+function compress(part: PartText): Promise<PartRow> {
+  const json = part.json;
+  return gzipAsync(json, { level: 1, strategy: zlib.Z_DEFAULT_STRATEGY }).then((payload) => ({ kind: part.kind, partKey: part.partKey, chunk: part.chunk, payload }));
+}
+
+function describe(part: { kind: AuditPartKind; partKey: string; chunk: number }) {
+  if (part.kind === 'scorecards') return 'The scorecards';
+  if (part.kind === 'shared_error') return `The shared-error analysis of ${part.partKey}`;
+  return `Chunk ${part.chunk} of the poll rows of ${part.partKey}`;
+}
+
+async function insertRows(c: RawConnection, auditId: number, rows: readonly PartRow[]) {
+  let start = 0;
+  while (start < rows.length) {
+    let end = start;
+    let bytes = 0;
+    while (end < rows.length && (end === start || bytes + rows[end]!.payload.length <= BATCH_BYTES)) bytes += rows[end++]!.payload.length;
+    const batch = rows.slice(start, end);
+    const big = batch.find((r) => r.payload.length > MAX_STATEMENT_BYTES - 1024);
+    if (big) {
+      throw new Error(`${describe(big)} is too large to store in one statement (${(big.payload.length / 1024 / 1024).toFixed(1)} MiB compressed; at most ${MAX_STATEMENT_BYTES / 1024 / 1024} MiB)`);
+    }
+    await c.query(
+      { sql: `INSERT INTO audit_parts (audit_id, kind, part_key, chunk, encoding, payload) VALUES ${batch.map(() => "(?, ?, ?, ?, 'gzip', ?)").join(', ')}` },
+      batch.flatMap((r) => [auditId, r.kind, r.partKey, r.chunk, r.payload]),
+    );
+    start = end;
   }
-  return sql;
 }
 
 /**
- * A string as a quoted SQL literal. Only the backslash, the quote and NUL need escaping inside
- * single quotes (a raw newline or double quote is literal text there); JSON text has no other
- * control characters, so this escapes far less than a general escape and sends fewer bytes.
+ * Stores the parts on `c` (the caller's transaction's connection), compressing each on the thread
+ * pool as soon as it is produced and sending compressed parts in multi-row INSERTs of about
+ * BATCH_BYTES, in order. `parts` is read lazily: between two parts the event loop turns, so the
+ * compression and the server's writes proceed while the next part is computed.
  */
-export function sqlText(v: string): string {
-  return `'${v.replace(/[\\'\0]/g, (c) => (c === '\0' ? '\\0' : `\\${c}`))}'`;
+export async function storeParts(c: RawConnection, auditId: number, parts: Iterable<PartText>): Promise<void> {
+  let chain: Promise<void> = Promise.resolve();
+  let failed: unknown = null;
+  let batch: Promise<PartRow>[] = [];
+  let batchChars = 0;
+  const flush = () => {
+    if (!batch.length) return;
+    const rows = batch;
+    batch = [];
+    batchChars = 0;
+    chain = chain.then(async () => insertRows(c, auditId, await Promise.all(rows)));
+    chain.catch((err: unknown) => (failed ??= err));
+  };
+  for (const part of parts) {
+    if (failed) break;
+    const pending = compress(part);
+    pending.catch(() => undefined);
+    batch.push(pending);
+    batchChars += part.json.length;
+    // ~5:1 compression: about BATCH_BYTES of compressed payload per INSERT.
+    if (batchChars >= BATCH_BYTES * 5) flush();
+    await new Promise((resolve) => setImmediate(resolve));
+  }
+  flush();
+  await chain;
 }
 
-/** The INSERT of one part (its payload is already JSON). */
-export function auditPartInsert(auditId: number, kind: AuditPartKind, partKey: string, payload: string): string {
-  const sql = `INSERT INTO audit_parts (audit_id, kind, part_key, payload) VALUES (${auditId}, ${sqlText(kind)}, ${sqlText(partKey)}, ${sqlText(payload)})`;
-  return checkStatementSize(sql, kind === 'scorecards' ? 'The scorecards' : `The shared-error analysis of ${partKey}`);
+/** The JSON text of a stored payload. */
+function payloadText(encoding: unknown, payload: unknown): string {
+  const bytes = Buffer.isBuffer(payload) ? payload : Buffer.from(String(payload), 'utf8');
+  return encoding === 'gzip' ? gunzipSync(bytes).toString('utf8') : bytes.toString('utf8');
 }
 
 /** The audit's stored scorecards (JSON text), or null when it stored none. */
 export async function loadStoredScorecards(sequelize: Sequelize, auditId: number): Promise<string | null> {
-  const [part] = await sequelize.query<{ payload: string }>(
-    "SELECT payload FROM audit_parts WHERE audit_id = :auditId AND kind = 'scorecards' AND part_key = ''",
-    { replacements: { auditId }, type: QueryTypes.SELECT },
-  );
-  if (part) return part.payload;
-  const [legacy] = await sequelize.query<{ scorecards: string | null }>('SELECT scorecards FROM audits WHERE id = :auditId', {
-    replacements: { auditId }, type: QueryTypes.SELECT,
-  });
-  return legacy?.scorecards ?? null;
+  const [part] = await rawRows(sequelize, "SELECT encoding, payload FROM audit_parts WHERE audit_id = ? AND kind = 'scorecards' AND part_key = '' AND chunk = 0", [auditId]);
+  if (part) return payloadText(part[0], part[1]);
+  const [legacy] = await rawRows(sequelize, 'SELECT scorecards FROM audits WHERE id = ?', [auditId]);
+  return (legacy?.[0] as string | null | undefined) ?? null;
 }
 
 /**
@@ -57,25 +130,41 @@ export async function loadStoredScorecards(sequelize: Sequelize, auditId: number
  */
 export async function loadStoredSharedErrors<T = unknown>(sequelize: Sequelize, auditId: number, electionKeys?: readonly string[]): Promise<Record<string, T>> {
   if (electionKeys && !electionKeys.length) return {};
-  const parts = await sequelize.query<{ part_key: string; payload: string }>(
-    `SELECT part_key, payload FROM audit_parts WHERE audit_id = :auditId AND kind = 'shared_error' ${electionKeys ? 'AND part_key IN (:electionKeys)' : ''} ORDER BY part_key`,
-    { replacements: { auditId, electionKeys: electionKeys ? [...electionKeys] : undefined }, type: QueryTypes.SELECT },
+  const parts = await rawRows(
+    sequelize,
+    `SELECT part_key, encoding, payload FROM audit_parts WHERE audit_id = ? AND kind = 'shared_error' ${electionKeys ? 'AND part_key IN (?)' : ''} ORDER BY part_key`,
+    electionKeys ? [auditId, [...electionKeys]] : [auditId],
   );
   const out: Record<string, T> = {};
   if (parts.length) {
-    for (const p of parts) out[p.part_key] = JSON.parse(p.payload) as T;
+    for (const p of parts) out[String(p[0])] = JSON.parse(payloadText(p[1], p[2])) as T;
     return out;
   }
   // An audit stored before audit_parts: either all its analyses are in parts, or none are.
-  const hasParts = await sequelize.query<{ n: number }>('SELECT 1 AS n FROM audit_parts WHERE audit_id = :auditId LIMIT 1', {
-    replacements: { auditId }, type: QueryTypes.SELECT,
-  });
+  const hasParts = await rawRows(sequelize, 'SELECT 1 FROM audit_parts WHERE audit_id = ? LIMIT 1', [auditId]);
   if (hasParts.length) return out;
-  const [legacy] = await sequelize.query<{ shared_error: string | null }>('SELECT shared_error FROM audits WHERE id = :auditId', {
-    replacements: { auditId }, type: QueryTypes.SELECT,
-  });
-  const all = JSON.parse(legacy?.shared_error ?? '{}') as Record<string, T>;
+  const [legacy] = await rawRows(sequelize, 'SELECT shared_error FROM audits WHERE id = ?', [auditId]);
+  const all = JSON.parse((legacy?.[0] as string | null | undefined) ?? '{}') as Record<string, T>;
   if (!electionKeys) return all;
   for (const k of electionKeys) if (Object.prototype.hasOwnProperty.call(all, k)) out[k] = all[k]!;
   return out;
+}
+
+/**
+ * The audit's per-poll rows (of one election when `electionKey` is given), ordered by election,
+ * contest and poll key. Audits stored before poll chunks keep them in `audit_polls`.
+ */
+export async function loadStoredPolls(sequelize: Sequelize, auditId: number, electionKey?: string): Promise<AuditPollDto[]> {
+  const parts = await rawRows(
+    sequelize,
+    `SELECT encoding, payload FROM audit_parts WHERE audit_id = ? AND kind = 'polls' ${electionKey !== undefined ? 'AND part_key = ?' : ''} ORDER BY part_key, chunk`,
+    electionKey !== undefined ? [auditId, electionKey] : [auditId],
+  );
+  if (parts.length) return parts.flatMap((p) => decodePollChunk(payloadText(p[0], p[1])));
+  const rows = await rawRows(
+    sequelize,
+    `SELECT metrics FROM audit_polls WHERE audit_id = ? ${electionKey !== undefined ? 'AND election_key = ?' : ''} ORDER BY election_key, contest_key, poll_key`,
+    electionKey !== undefined ? [auditId, electionKey] : [auditId],
+  );
+  return rows.map((r) => decodeAuditPoll(String(r[0])));
 }

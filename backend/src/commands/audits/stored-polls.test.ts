@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { AuditPollDto } from '@veracast/shared-types';
-import { decodeAuditPoll, encodeAuditPoll } from './stored-polls';
-import { checkStatementSize, MAX_STATEMENT_BYTES, sqlText } from './parts';
+import { decodeAuditPoll, decodePollChunk, encodePollChunk, STORED_FIELDS } from './stored-polls';
 
 // [practice] a poll row with every kind of field value an audit stores (numbers, nulls, booleans, a note list, a quote and a backslash in text).
 const poll: AuditPollDto = {
@@ -12,40 +11,41 @@ const poll: AuditPollDto = {
   winnerCalled: true, shareCovered: false, marginCovered: null, daysOut: 62.5, daysOutEnd: 60, undecidedShare: 13, twoPartyShareError: -0.04,
   nEff: 1984.224597465973, pollA: 41, pollB: 33, resultA: 47.52686392580028, resultB: 38.19134411776874, notes: ['one note', 'and "another"'], error: null,
 };
+const other: AuditPollDto = { ...poll, pollKey: 'p2', marginError: null, absMarginError: null, notes: [], error: 'contest c1 has no result yet' };
 
-describe('stored poll rows', () => {
-  it('round-trips every AuditPollDto field exactly and drops detail', () => {
-    const withDetail = { ...poll, detail: null };
-    const back = decodeAuditPoll(encodeAuditPoll(withDetail));
-    expect(back).toStrictEqual(poll);
-    expect(Object.keys(back)).not.toContain('detail');
+describe('stored chunks of poll rows', () => {
+  it('round-trip every AuditPollDto field exactly, in order, and drop detail', () => {
+    const back = decodePollChunk(encodePollChunk([{ ...poll, detail: null }, other]));
+    expect(back).toStrictEqual([poll, other]);
+    expect(Object.keys(back[0]!)).not.toContain('detail');
     // [practice] JSON keeps the shortest round-trip form of a double: the same bits come back.
-    expect(Object.is(back.mosteller5, 0.1 + 0.2)).toBe(true);
+    expect(Object.is(back[0]!.mosteller5, 0.1 + 0.2)).toBe(true);
   });
 
-  it('stores no field names', () => {
-    expect(encodeAuditPoll(poll)).not.toContain('marginError');
-    expect(encodeAuditPoll(poll).length).toBeLessThan(JSON.stringify(poll).length * 0.75);
+  it('name the fields once per chunk, not per row', () => {
+    const text = encodePollChunk([poll, other, poll]);
+    expect(text.match(/"marginError"/g)).toHaveLength(1);
+    expect(text.length).toBeLessThan(JSON.stringify([poll, other, poll]).length * 0.75);
   });
 
-  it('still reads rows stored as objects by earlier audits', () => {
-    const old = JSON.stringify({ ...poll, detail: { winner: 'a' } });
-    expect(decodeAuditPoll(old)).toStrictEqual(JSON.parse(old));
+  it('read rows by the field names the chunk stores, whatever their order', () => {
+    const text = JSON.stringify({ format: 'audit-polls/2', fields: ['marginError', 'pollKey'], rows: [[1.5, 'x']] });
+    expect(decodePollChunk(text)).toStrictEqual([{ marginError: 1.5, pollKey: 'x' }]);
+  });
+
+  it('refuse text in another format, saying which format they expect', () => {
+    expect(() => decodePollChunk('{"rows":[]}')).toThrow(/audit-polls\/2/);
   });
 });
 
-describe('statement text', () => {
-  it('quotes a backslash, a quote and NUL; leaves other text as it is', () => {
-    expect(sqlText("it's")).toBe("'it\\'s'");
-    expect(sqlText('a\\b')).toBe("'a\\\\b'");
-    expect(sqlText('x\0y')).toBe("'x\\0y'");
-    expect(sqlText('"q"\n')).toBe("'\"q\"\n'");
+describe('poll rows stored by earlier audits (audit_polls.metrics)', () => {
+  it('reads the tagged-array form', () => {
+    const text = JSON.stringify(['audit-poll/1', ...STORED_FIELDS.map((f) => poll[f])]);
+    expect(decodeAuditPoll(text)).toStrictEqual(poll);
   });
 
-  it('refuses a statement over the limit, counting UTF-8 bytes', () => {
-    const ascii = 'x'.repeat(MAX_STATEMENT_BYTES);
-    expect(checkStatementSize(ascii, 'it')).toBe(ascii);
-    // 'é' is 2 bytes in UTF-8: fewer characters than the limit, more bytes.
-    expect(() => checkStatementSize('é'.repeat(MAX_STATEMENT_BYTES / 2 + 1), 'The test part')).toThrow(/The test part is too large/);
+  it('reads the object form', () => {
+    const old = JSON.stringify({ ...poll, detail: { winner: 'a' } });
+    expect(decodeAuditPoll(old)).toStrictEqual(JSON.parse(old));
   });
 });
