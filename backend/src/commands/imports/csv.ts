@@ -86,9 +86,11 @@ export function openCsv(buffer: Buffer): CsvReader {
     const len = buffer.length;
     let pos = start;
     /** The next line (as `text.split(newline)` would give it), or null past the end. */
+    // Searching for a byte is cheaper than for a one-character string (no conversion per call).
+    const needle: number | string = newline === '\n' ? 0x0a : newline === '\r' ? 0x0d : newline;
     const nextLine = (): string | null => {
       if (pos > len) return null;
-      let end = buffer.indexOf(newline, pos);
+      let end = buffer.indexOf(needle, pos);
       if (end === -1) end = len;
       const line = buffer.toString('utf8', pos, end);
       pos = end + newline.length;

@@ -339,9 +339,15 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
   }
   const finalPolls = usable.filter((p) => !anyBad(p.draft, c.badRows));
 
-  // Existing polls (for upsert counts), set-based.
+  // Existing polls (for upsert counts), set-based: which keys exist (a cheap probe of the key
+  // index), then the stored values of those only (none on a first import).
   const existing = new Map<string, { id: number; sig: string }>();
+  const existingKeys: string[] = [];
   for (const part of chunk(finalPolls.map((p) => p.key), 5000)) {
+    const found = await sequelize.query<{ key: string }>('SELECT `key` FROM polls WHERE `key` IN (:keys)', { replacements: { keys: part }, type: QueryTypes.SELECT });
+    for (const r of found) existingKeys.push(r.key);
+  }
+  for (const part of chunk(existingKeys, 5000)) {
     const found = await sequelize.query<Record<string, unknown> & { id: number; key: string }>(
       `SELECT p.id, p.\`key\`, p.pollster_id, s.name AS sponsor, p.contest_id, p.fieldwork_start, p.fieldwork_end, p.published_on, p.sample_size,
               p.population, p.mode, p.moe, p.study_key, p.is_headline, p.tracking, p.source_url, p.question_wording, p.weighting_statement, p.tables_url,
