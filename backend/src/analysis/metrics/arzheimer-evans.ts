@@ -81,7 +81,8 @@ export function aeAccuracy(poll: Shares, result: Shares, n: number): AeResult {
   const weighted: number[] = [];
   const chiTerms: number[] = [];
   const gTerms: number[] = [];
-  categories.forEach((key, i) => {
+  for (let i = 0; i < categories.length; i++) {
+    const key = categories[i]!;
     const pi = p[i] ?? 0;
     const vi = v[i] ?? 0;
     const a = Math.log(pi / (1 - pi)) - Math.log(vi / (1 - vi));
@@ -93,7 +94,7 @@ export function aeAccuracy(poll: Shares, result: Shares, n: number): AeResult {
     const expected = n * vi;
     chiTerms.push((observed - expected) ** 2 / expected);
     gTerms.push(observed * Math.log(observed / expected));
-  });
+  }
   const df = categories.length - 1;
   const chi2 = sum(chiTerms);
   const g2 = 2 * sum(gTerms);

@@ -34,7 +34,12 @@ function daysInMonth(year: number, month: number): number {
  * @throws {MetricInputError} `parameter` when not `YYYY-MM-DD` or not a real date.
  * @example isoDayNumber('date', '1970-01-02') // => 1
  */
+/** Day numbers of valid dates already read (dates repeat across polls); cleared when large. */
+const known = new Map<string, number>();
+
 export function isoDayNumber(parameter: string, iso: string): number {
+  const seen = known.get(iso);
+  if (seen !== undefined) return seen;
   const match = typeof iso === 'string' ? ISO_DATE.exec(iso) : null;
   if (match === null) throw new MetricInputError(parameter, 'must be an ISO date YYYY-MM-DD');
   const year = Number(match[1]);
@@ -43,7 +48,10 @@ export function isoDayNumber(parameter: string, iso: string): number {
   if (month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month)) {
     throw new MetricInputError(parameter, 'must be a real calendar date');
   }
-  return dayNumber(year, month, day);
+  const n = dayNumber(year, month, day);
+  if (known.size >= 100_000) known.clear();
+  known.set(iso, n);
+  return n;
 }
 
 /** Days from fieldwork to election day. */

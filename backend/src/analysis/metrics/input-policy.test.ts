@@ -177,6 +177,12 @@ const cases: Record<string, [() => unknown, string][]> = {
     [() => metrics.computePollMetrics(buildPoll(), buildContest(), bad<Settings>(null)), 'settings'],
     [() => metrics.computePollMetrics(buildPoll(), buildContest(), { undecided: bad('all'), designEffect: 1 }), 'undecided'],
     [() => metrics.computePollMetrics(buildPoll(), buildContest(), { undecided: 'raw', designEffect: 0 }), 'designEffect'],
+    [() => metrics.computePollMetrics(buildPoll({ n: 0 }), metrics.preparePollContest(buildContest()), settings), 'n'],
+  ],
+  preparePollContest: [
+    [() => metrics.preparePollContest(bad<Contest>(null)), 'contest'],
+    [() => metrics.preparePollContest(buildContest({ options: [opt('A', null, 1)] })), 'options'],
+    [() => metrics.preparePollContest(buildContest({ orientation: bad(['left', 'left']) })), 'orientation'],
   ],
 };
 

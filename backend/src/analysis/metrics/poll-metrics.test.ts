@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { MetricInputError } from '../errors';
-import { computePollMetrics, type PollMetrics } from './poll-metrics';
+import { computePollMetrics, preparePollContest, type PollMetrics } from './poll-metrics';
 import { mtkAccuracy } from './mtk';
 import { nEffFromStatedMoe } from './sampling';
 import { buildContest, buildPoll, expectInputError, near } from './test-helpers';
@@ -216,5 +216,64 @@ describe('computePollMetrics: undefined metrics are null with a note, never NaN'
     expectInputError(() => computePollMetrics(buildPoll({ shares: { A: 48, C: 3 } }), contest, raw), 'shares.B');
     expectInputError(() => computePollMetrics(buildPoll({ shares: { B: 48, C: 3 } }), contest, raw), 'shares.A');
     expect(() => computePollMetrics(buildPoll({ shares: { A: 48 } }), contest, raw)).toThrow(MetricInputError);
+  });
+});
+
+describe('preparePollContest', () => {
+  // [practice] preparing a contest once for many polls must not change any metric.
+  const contests = [
+    buildContest({ options: [opt('A', 'left', 502), opt('B', 'right', 473), opt('other', null, 25)] }),
+    buildContest({ orientation: ['left', 'right'], options: [opt('A', 'left', 480), opt('B', 'right', 495), opt('C', null, 25)] }),
+    buildContest({ options: [opt('yes', null, 505), opt('no', null, 495)] }),
+  ];
+  const polls = [
+    buildPoll({ shares: { A: 48, B: 44, other: 2, undecided: 6 } }),
+    buildPoll({ shares: { A: 47, B: 45, undecided: 8 }, moe: 3.1 }),
+    buildPoll({ shares: { A: 0, B: 45, C: 3, undecided: 2 } }),
+    buildPoll({ shares: { yes: 46, no: 46, undecided: 8 } }),
+  ];
+
+  it('gives the same metrics as the contest itself, under every treatment', () => {
+    for (const contest of contests) {
+      const prepared = preparePollContest(contest);
+      for (const poll of polls) {
+        for (const settings of [raw, proportional, twoParty, { undecided: 'raw', designEffect: 1.8 } as const]) {
+          let direct: PollMetrics | string;
+          try {
+            direct = computePollMetrics(poll, contest, settings);
+          } catch (err) {
+            direct = (err as Error).message;
+          }
+          let viaPrepared: PollMetrics | string;
+          try {
+            viaPrepared = computePollMetrics(poll, prepared, settings);
+          } catch (err) {
+            viaPrepared = (err as Error).message;
+          }
+          expect(viaPrepared).toStrictEqual(direct);
+        }
+      }
+    }
+  });
+
+  it('refuses a contest as computePollMetrics does, naming the field', () => {
+    const bad = buildContest({ options: [opt('A', null, 10)] });
+    let direct: unknown;
+    try {
+      computePollMetrics(polls[0]!, bad, raw);
+    } catch (err) {
+      direct = err;
+    }
+    expect(direct).toBeInstanceOf(MetricInputError);
+    expect(() => preparePollContest(bad)).toThrow((direct as Error).message);
+  });
+
+  it('never changes the contest it was given', () => {
+    const contest = contests[0]!;
+    const before = JSON.stringify(contest);
+    const prepared = preparePollContest(contest);
+    computePollMetrics(polls[0]!, prepared, twoParty);
+    expect(JSON.stringify(contest)).toBe(before);
+    expect(Object.isFrozen(Object.getOwnPropertySymbols(prepared).map((s) => (prepared as unknown as Record<symbol, unknown>)[s])[0])).toBe(true);
   });
 });

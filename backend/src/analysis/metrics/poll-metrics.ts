@@ -58,6 +58,27 @@ export interface PollContestInput extends ContestInput {
 }
 
 /** Settings of the audit that bear on one poll. */
+const PREPARED = Symbol('prepared contest');
+
+/** A contest checked once, with its reference pair and certified shares (see {@link preparePollContest}). */
+export interface PreparedPollContest extends PollContestInput {
+  readonly [PREPARED]: { readonly pair: ReturnType<typeof referencePair>; readonly certified: Readonly<Record<string, number>> };
+}
+
+/**
+ * Checks a contest and computes, once, what every poll of it shares (its reference pair and
+ * certified shares), for computing many polls of one contest: `computePollMetrics` with the
+ * result gives exactly what it gives with the contest itself. Both are frozen (never changed).
+ *
+ * @throws {MetricInputError} as `computePollMetrics` does for the contest (`options…`, `orientation`).
+ * @returns a new object: the contest's fields and the prepared values.
+ */
+export function preparePollContest(contest: PollContestInput): PreparedPollContest {
+  const pair = Object.freeze(referencePair(contest));
+  const certified = Object.freeze(certifiedShares(contest.options));
+  return { ...contest, [PREPARED]: Object.freeze({ pair, certified }) };
+}
+
 export interface PollMetricSettings {
   readonly undecided: UndecidedTreatment;
   /** Design effect the audit assumes, > 0 (1 for simple random sampling). */
@@ -178,11 +199,12 @@ function requirePoll(poll: PollInput): void {
  */
 export function computePollMetrics(
   poll: PollInput,
-  contest: PollContestInput,
+  contest: PollContestInput | PreparedPollContest,
   settings: PollMetricSettings,
 ): PollMetrics {
-  const pair = referencePair(contest);
-  const certified = certifiedShares(contest.options);
+  const prepared = contest !== null && typeof contest === 'object' ? (contest as Partial<PreparedPollContest>)[PREPARED] : undefined;
+  const pair = prepared?.pair ?? referencePair(contest);
+  const certified = prepared?.certified ?? certifiedShares(contest.options);
   requirePoll(poll);
   requireSettings(settings);
   const days = computeDaysOut(contest.electionDate, poll.fieldworkStart, poll.fieldworkEnd);

@@ -39,8 +39,11 @@ export function requireShares(parameter: string, shares: Shares): void {
   if (shares === null || typeof shares !== 'object' || Array.isArray(shares)) {
     throw new MetricInputError(parameter, 'must be an object of shares in points keyed by option key');
   }
-  for (const [key, value] of Object.entries(shares)) {
-    requirePoints(`${parameter}.${key}`, value);
+  for (const key in shares) {
+    if (!Object.hasOwn(shares, key)) continue;
+    const value = shares[key];
+    // The parameter's name is built only for a value that fails (this runs for every share of every poll).
+    if (!(typeof value === 'number' && value >= 0 && value <= 100)) requirePoints(`${parameter}.${key}`, value as number);
   }
 }
 
@@ -52,9 +55,12 @@ export function requireNonNegativeShares(parameter: string, shares: Shares): voi
   if (shares === null || typeof shares !== 'object' || Array.isArray(shares)) {
     throw new MetricInputError(parameter, 'must be an object of shares keyed by option key');
   }
-  for (const [key, value] of Object.entries(shares)) {
-    requireFinite(`${parameter}.${key}`, value);
-    if (value < 0) throw new MetricInputError(`${parameter}.${key}`, 'must be 0 or more');
+  for (const key in shares) {
+    if (!Object.hasOwn(shares, key)) continue;
+    const value = shares[key];
+    if (typeof value === 'number' && Number.isFinite(value) && value >= 0) continue;
+    requireFinite(`${parameter}.${key}`, value as number);
+    throw new MetricInputError(`${parameter}.${key}`, 'must be 0 or more');
   }
 }
 

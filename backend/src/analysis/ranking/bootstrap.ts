@@ -220,34 +220,31 @@ export function bootstrapRanks(
   }
   for (const list of entries) for (const e of list) e.total = sum(e.ds);
 
-  // The same entries, flat (firm fi's are entryFrom[fi] … entryFrom[fi + 1] − 1; entry e's d_j
-  // values are dFrom[e] … dFrom[e + 1] − 1), so each draw reads typed arrays in the same order
-  // and does the same arithmetic as over the lists above.
+  // The same entries, flat: firm fi's are entryFrom[fi] … entryFrom[fi + 1] − 1, each with its
+  // contest, its number of d_j values, their sum and their sum of squares.
   const entryFrom = new Int32Array(firms.length + 1);
   let entryCount = 0;
-  let dCount = 0;
   entries.forEach((list, fi) => {
     entryFrom[fi] = entryCount;
     entryCount += list.length;
-    for (const e of list) dCount += e.ds.length;
   });
   entryFrom[firms.length] = entryCount;
   const entryContest = new Int32Array(entryCount);
+  const entryN = new Int32Array(entryCount);
   const entryTotal = new Float64Array(entryCount);
-  const dFrom = new Int32Array(entryCount + 1);
-  const dValues = new Float64Array(dCount);
+  const entrySquares = new Float64Array(entryCount);
   let e = 0;
-  let k = 0;
   for (const list of entries) {
     for (const entry of list) {
       entryContest[e] = entry.contest;
+      entryN[e] = entry.ds.length;
       entryTotal[e] = entry.total;
-      dFrom[e] = k;
-      for (const d of entry.ds) dValues[k++] = d;
+      let q = 0;
+      for (const d of entry.ds) q += d * d;
+      entrySquares[e] = q;
       e++;
     }
   }
-  dFrom[entryCount] = k;
 
   const G = contestKeys.length;
   const rng = seedrandom(String(seed));
@@ -266,22 +263,21 @@ export function bootstrapRanks(
     const present: number[] = [];
     const summaries: { mean: number; n: number; ss: number }[] = [];
     for (let fi = 0; fi < firms.length; fi += 1) {
-      const from = entryFrom[fi] as number;
-      const to = entryFrom[fi + 1] as number;
+      // One pass: n, Σ m·total and Σ m·Σd²; then ss = Σ m·Σ(d − mean)² = Σ m·Σd² − total·mean.
       let n = 0;
       let total = 0;
-      for (let x = from; x < to; x += 1) {
+      let squares = 0;
+      for (let x = entryFrom[fi] as number, to = entryFrom[fi + 1] as number; x < to; x += 1) {
         const m = multiplicity[entryContest[x] as number] as number;
-        n += m * ((dFrom[x + 1] as number) - (dFrom[x] as number));
+        if (m === 0) continue;
+        n += m * (entryN[x] as number);
         total += m * (entryTotal[x] as number);
+        squares += m * (entrySquares[x] as number);
       }
       if (n === 0) continue;
       const mean = total / n;
-      let ss = 0;
-      for (let x = from; x < to; x += 1) {
-        const m = multiplicity[entryContest[x] as number] as number;
-        if (m > 0) for (let y = dFrom[x] as number, end = dFrom[x + 1] as number; y < end; y += 1) ss += m * ((dValues[y] as number) - mean) ** 2;
-      }
+      // Rounding can leave a hair below 0 when every value is the same.
+      const ss = Math.max(0, squares - total * mean);
       present.push(fi);
       summaries.push({ mean, n, ss });
       (excessDraws[fi] as number[]).push(mean);

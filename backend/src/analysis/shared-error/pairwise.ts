@@ -136,6 +136,18 @@ function meanWithout(xs: readonly number[], skipA: number, skipB: number): numbe
   return (sum + correction) / count;
 }
 
+const tooFewNotes = new Map<string, string>();
+/** The note of a pair with too few common contests (one string per (n, minCommon)). */
+function tooFewNote(n: number, minCommon: number): string {
+  const k = `${n}/${minCommon}`;
+  let note = tooFewNotes.get(k);
+  if (note === undefined) {
+    note = `only ${n} common contest${n === 1 ? '' : 's'}; at least ${minCommon} are needed`;
+    tooFewNotes.set(k, note);
+  }
+  return note;
+}
+
 function analysePair(
   a: string,
   b: string,
@@ -159,10 +171,13 @@ function analysePair(
       j++;
     }
   }
-  const base = { a, b, n, nAdjusted };
   if (n < minCommon) {
+    // Most pairs end here (firms rarely share many contests): one literal, the note reused.
     return {
-      ...base,
+      a,
+      b,
+      n,
+      nAdjusted,
       pearson: null,
       pearsonP: null,
       spearman: null,
@@ -170,9 +185,10 @@ function analysePair(
       pearsonAdjusted: null,
       pearsonAdjustedP: null,
       insufficient: true,
-      note: `only ${n} common contest${n === 1 ? '' : 's'}; at least ${minCommon} are needed`,
+      note: tooFewNote(n, minCommon),
     };
   }
+  const base = { a, b, n, nAdjusted };
   const xa: number[] = new Array<number>(n);
   const xb: number[] = new Array<number>(n);
   const adjA: number[] = new Array<number>(nAdjusted);
