@@ -9,6 +9,7 @@ import { createMailer } from './services/mail';
 import { hashPassword, randomToken } from './services/crypto';
 import { createApp } from './app';
 import type { AppContext } from './http/context';
+import { configureAuditWorkers, stopAuditWorkers, warmAuditWorkers } from './commands/audits/workers';
 
 export function createLogger(config: Pick<Config, 'LOG_LEVEL'>): Logger {
   return pino({ level: config.LOG_LEVEL, base: undefined });
@@ -52,6 +53,9 @@ export async function startServer(config: Config, hooks: { afterMigrate?: (ctx: 
   const ctx: AppContext = { config, sequelize, mailer, logger };
   await hooks.afterMigrate?.(ctx);
   const app = createApp(ctx);
+  // Audit worker threads start now (about half a second each), not on the first large audit.
+  configureAuditWorkers(config.AUDIT_WORKERS);
+  warmAuditWorkers();
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(config.PORT, config.HOST, () => resolve(s));
   });
@@ -65,6 +69,7 @@ export async function startServer(config: Config, hooks: { afterMigrate?: (ctx: 
       await new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();
       await mailer.close();
+      await stopAuditWorkers();
       await sequelize.close();
     },
   };

@@ -28,6 +28,8 @@ const schema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   LOGIN_MAX_FAILURES: z.coerce.number().int().positive().default(9),
   FRONTEND_DIST: z.string().optional(),
+  /** Audit worker threads (0 = audits on the main thread only); default one per CPU besides the main one, at most 3. */
+  AUDIT_WORKERS: z.coerce.number().int().min(0).max(16).optional(),
 });
 
 export type Config = z.infer<typeof schema> & { publicUrl: string };

@@ -40,17 +40,15 @@ export async function rawRows(sequelize: Sequelize, sql: string, values: unknown
 }
 
 /**
- * Runs the SELECTs one after another in one read-only transaction, so that they all see the same
- * committed state (InnoDB's consistent snapshot), and returns their rows as {@link rawRows} does.
- * Each statement takes the same `values`.
+ * Runs `fn` in one read-only transaction on one connection, so that every SELECT it makes with
+ * `select` (rows as {@link rawRows} returns them) sees the same committed state (InnoDB's
+ * consistent snapshot).
  */
-export async function readSnapshot(sequelize: Sequelize, statements: readonly string[], values: unknown[] = []): Promise<unknown[][][]> {
+export async function withSnapshot<T>(sequelize: Sequelize, fn: (select: (sql: string, values?: unknown[]) => Promise<unknown[][]>) => Promise<T>): Promise<T> {
   return withConnection(sequelize, null, async (c) => {
     await c.query({ sql: 'START TRANSACTION WITH CONSISTENT SNAPSHOT, READ ONLY' });
     try {
-      const out: unknown[][][] = [];
-      for (const sql of statements) out.push((await c.query({ sql, rowsAsArray: true, typeCast: undefined, dateStrings: true }, values)) as unknown[][]);
-      return out;
+      return await fn(async (sql, values = []) => (await c.query({ sql, rowsAsArray: true, typeCast: undefined, dateStrings: true }, values)) as unknown[][]);
     } finally {
       await c.query({ sql: 'COMMIT' });
     }

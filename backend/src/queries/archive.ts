@@ -1,7 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { ContestKind, Mode, Population, ResultStatus, SponsorType } from '@veracast/shared-types';
 import { DISCLOSURE_ITEMS, type DisclosureDto } from '@veracast/shared-types';
-import { readSnapshot } from '../db/raw';
+import { rawRows, withSnapshot } from '../db/raw';
 
 /** Set-based loaders of the archive (elections, contests with options, polls with shares). */
 
@@ -64,34 +64,64 @@ export async function loadContests(s: Sequelize, where: { electionIds?: number[]
  * Sequelize's row mapping took ~3 s (an ORDER BY on the server costs more than the sort here).
  */
 export async function loadPolls(s: Sequelize, where: { contestIds?: number[]; pollsterId?: number; keys?: string[] }): Promise<PollRow[]> {
-  const conds: string[] = [];
-  const values: unknown[] = [];
-  if (where.contestIds) {
-    if (!where.contestIds.length) return [];
-    conds.push('p.contest_id IN (?)');
-    values.push(where.contestIds);
-  }
-  if (where.pollsterId !== undefined) {
-    conds.push('p.pollster_id = ?');
-    values.push(where.pollsterId);
-  }
-  if (where.keys) {
-    if (!where.keys.length) return [];
-    conds.push('p.`key` IN (?)');
-    values.push(where.keys);
-  }
-  const filter = conds.length ? `WHERE ${conds.join(' AND ')}` : '';
-  const [rows, shareRows] = await readSnapshot(s, [
-    `SELECT p.id, p.\`key\`, p.pollster_id, p.contest_id, p.fieldwork_start, p.fieldwork_end, p.published_on, p.sample_size, p.population, p.mode, p.moe,
-       p.study_key, p.is_headline, p.tracking, p.source_url, p.question_wording, p.weighting_statement, p.tables_url,
-       f.name AS pollster_name, sp.name AS sponsor_name, sp.type AS sponsor_type
-     FROM polls p JOIN pollsters f ON f.id = p.pollster_id LEFT JOIN sponsors sp ON sp.id = p.sponsor_id ${filter}`,
-    `SELECT x.poll_id, x.option_key, x.share FROM poll_shares x JOIN polls p ON p.id = x.poll_id ${filter}`,
-  ], values);
-  const polls: PollRow[] = new Array<PollRow>(rows!.length);
+  if ((where.contestIds && !where.contestIds.length) || (where.keys && !where.keys.length)) return [];
+  let out: PollRow[] = [];
+  await loadPollGroups(s, [where], (_, polls) => {
+    out = polls;
+  });
+  return out;
+}
+
+/**
+ * Several sets of polls (as {@link loadPolls} reads each) read one after another in one read-only
+ * snapshot, so that together they are one consistent state; `onGroup` gets each set as soon as it
+ * is read, before the next is.
+ */
+export async function loadPollGroups(
+  s: Sequelize,
+  groups: readonly { contestIds?: number[]; pollsterId?: number; keys?: string[] }[],
+  onGroup: (index: number, polls: PollRow[]) => void,
+): Promise<void> {
+  await withSnapshot(s, async (select) => {
+    for (let g = 0; g < groups.length; g++) {
+      const where = groups[g]!;
+      if ((where.contestIds && !where.contestIds.length) || (where.keys && !where.keys.length)) {
+        onGroup(g, []);
+        continue;
+      }
+      const conds: string[] = [];
+      const values: unknown[] = [];
+      if (where.contestIds) {
+        conds.push('p.contest_id IN (?)');
+        values.push(where.contestIds);
+      }
+      if (where.pollsterId !== undefined) {
+        conds.push('p.pollster_id = ?');
+        values.push(where.pollsterId);
+      }
+      if (where.keys) {
+        conds.push('p.`key` IN (?)');
+        values.push(where.keys);
+      }
+      const filter = conds.length ? `WHERE ${conds.join(' AND ')}` : '';
+      const rows = await select(
+        `SELECT p.id, p.\`key\`, p.pollster_id, p.contest_id, p.fieldwork_start, p.fieldwork_end, p.published_on, p.sample_size, p.population, p.mode, p.moe,
+           p.study_key, p.is_headline, p.tracking, p.source_url, p.question_wording, p.weighting_statement, p.tables_url,
+           f.name AS pollster_name, sp.name AS sponsor_name, sp.type AS sponsor_type
+         FROM polls p JOIN pollsters f ON f.id = p.pollster_id LEFT JOIN sponsors sp ON sp.id = p.sponsor_id ${filter}`,
+        values,
+      );
+      const shareRows = await select(`SELECT x.poll_id, x.option_key, x.share FROM poll_shares x JOIN polls p ON p.id = x.poll_id ${filter}`, values);
+      onGroup(g, pollRows(rows, shareRows));
+    }
+  });
+}
+
+function pollRows(rows: unknown[][], shareRows: unknown[][]): PollRow[] {
+  const polls: PollRow[] = new Array<PollRow>(rows.length);
   const byId = new Map<number, PollRow>();
   for (let i = 0; i < polls.length; i++) {
-    const r = rows![i]!;
+    const r = rows[i]!;
     const id = Number(r[0]);
     const poll: PollRow = {
       id, key: String(r[1]), pollsterId: Number(r[2]), pollster: String(r[18]), sponsor: (r[19] as string | null) ?? null,
@@ -107,7 +137,7 @@ export async function loadPolls(s: Sequelize, where: { contestIds?: number[]; po
   // Shares usually arrive in key order per poll (the primary key's); a poll whose did not is re-sorted.
   const lastKey = new Map<PollRow, string>();
   const unsorted = new Set<PollRow>();
-  for (const r of shareRows!) {
+  for (const r of shareRows) {
     const poll = byId.get(Number(r[0]));
     if (!poll) continue;
     const key = String(r[1]);
@@ -124,8 +154,17 @@ export async function loadPolls(s: Sequelize, where: { contestIds?: number[]; po
   return polls.sort(byFieldworkEndThenKey);
 }
 
+/** Poll counts per contest, set-based (for splitting work before reading the polls). */
+export async function countPolls(s: Sequelize, contestIds: readonly number[]): Promise<Map<number, number>> {
+  if (!contestIds.length) return new Map();
+  const rows = await rawRows(s, 'SELECT contest_id, COUNT(*) FROM polls WHERE contest_id IN (?) GROUP BY contest_id', [[...contestIds]]);
+  return new Map(rows.map((r) => [Number(r[0]), Number(r[1])]));
+}
+
 const codeUnits = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
-const byFieldworkEndThenKey = (a: PollRow, b: PollRow) => codeUnits(a.fieldworkEnd, b.fieldworkEnd) || codeUnits(a.key, b.key);
+/** The order of polls everywhere: fieldwork end, then key (code units). */
+export const byFieldworkEndThenKey = (a: { fieldworkEnd: string; key: string }, b: { fieldworkEnd: string; key: string }) =>
+  codeUnits(a.fieldworkEnd, b.fieldworkEnd) || codeUnits(a.key, b.key);
 
 /** Certified shares in points: votes over the sum of all options' votes. */
 export function certifiedShares(options: readonly OptionRow[]): Record<string, number> | null {
@@ -145,6 +184,13 @@ export function orientationOf(election: ElectionRow, contests: readonly ContestR
   const ranked = [...totals].filter(([, v]) => v > 0).sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : 1));
   if (ranked.length < 2) return { blocA: null, blocB: null, source: 'none' };
   return { blocA: ranked[0]![0], blocB: ranked[1]![0], source: 'default' };
+}
+
+/** `disclosureOf(p).completeness` without building the items (for every poll of an audit). */
+export function disclosureCompleteness(p: PollRow): number {
+  const present = (p.sponsor ? 1 : 0) + (p.pollster ? 1 : 0) + (p.fieldworkStart && p.fieldworkEnd ? 1 : 0) + (p.population ? 1 : 0) + (p.sampleSize > 0 ? 1 : 0)
+    + (p.mode ? 1 : 0) + (p.moe != null ? 1 : 0) + (p.weightingStatement ? 1 : 0) + (p.questionWording ? 1 : 0) + (p.tablesUrl ? 1 : 0);
+  return present / DISCLOSURE_ITEMS.length;
 }
 
 /** The standard disclosure items present in a published poll (kept apart from accuracy). */

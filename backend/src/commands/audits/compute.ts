@@ -1,9 +1,9 @@
 import type { AuditHeadline, AuditPollDto, AuditSettings } from '@veracast/shared-types';
-import { computePollMetrics } from '../../analysis/metrics';
+import { computePollMetrics, preparePollContest, type PollContestInput } from '../../analysis/metrics';
 import { MetricInputError } from '../../analysis/errors';
 import { clusteredMean, computeScorecards, type ScorecardPoll } from '../../analysis/ranking';
 import { computeSharedError, type SharedErrorPoll } from '../../analysis/shared-error';
-import { disclosureOf, orientationOf, type ContestRow, type ElectionRow, type PollRow } from '../../queries/archive';
+import { disclosureCompleteness, orientationOf, type ContestRow, type ElectionRow, type PollRow } from '../../queries/archive';
 import type { AuditInputs } from './inputs';
 
 const mean = (xs: readonly number[]) => (xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : null);
@@ -31,6 +31,19 @@ interface ContestContext {
   metricsContest: Parameters<typeof computePollMetrics>[1];
 }
 
+/**
+ * The contest prepared once for all its polls; a contest the core refuses stays as it is, so that
+ * each of its polls fails with the core's own message.
+ */
+function prepared(contest: PollContestInput): PollContestInput {
+  try {
+    return preparePollContest(contest);
+  } catch (err) {
+    if (err instanceof MetricInputError) return contest;
+    throw err;
+  }
+}
+
 /** Every poll of the audit's elections with its metrics and the inWindow / isFinal flags. */
 export function computeAuditPolls(inputs: AuditInputs, settings: AuditSettings, options: AuditPollOptions = {}): AuditPollDto[] {
   const withDetail = options.detail ?? true;
@@ -45,10 +58,10 @@ export function computeAuditPolls(inputs: AuditInputs, settings: AuditSettings, 
     contexts.set(contest.id, {
       contestKey: contest.key, electionKey: election.key, electionDate: election.date, windowStart: windowStart.get(election.id)!,
       hasResult: contest.options.some((x) => (x.votes ?? 0) > 0),
-      metricsContest: {
+      metricsContest: prepared({
         options: contest.options.map((x) => ({ key: x.key, bloc: x.bloc, votes: x.votes ?? 0 })),
         orientation: o.blocA && o.blocB ? [o.blocA, o.blocB] : null, electionDate: election.date,
-      },
+      }),
     });
   }
   const metricSettings = { undecided: settings.undecided, designEffect: settings.designEffect };
@@ -57,7 +70,7 @@ export function computeAuditPolls(inputs: AuditInputs, settings: AuditSettings, 
     const p = inputs.polls[n]!;
     const c = contexts.get(p.contestId)!;
     const inWindow = p.fieldworkEnd >= c.windowStart && p.fieldworkEnd <= c.electionDate;
-    const disclosure = disclosureOf(p).completeness;
+    const disclosure = disclosureCompleteness(p);
     if (!c.hasResult) {
       items[n] = failedItem(p, c, inWindow, disclosure, `contest ${c.contestKey} has no result yet`, withDetail);
       continue;
@@ -140,7 +153,19 @@ export const usedPolls = (items: readonly AuditPollDto[], settings: Pick<AuditSe
   items.filter((i) => i.inWindow && (!settings.finalOnly || i.isFinal) && i.error === null && i.marginError !== null);
 
 export function headline(items: readonly AuditPollDto[], settings: AuditSettings, elections: readonly ElectionRow[], contests: readonly ContestRow[]): AuditHeadline {
-  const used = usedPolls(items, settings);
+  return headlineOfUsed(usedPolls(items, settings), { pollsTotal: items.length, notComputable: items.filter((i) => i.error !== null).length }, elections, contests);
+}
+
+/**
+ * The headline from the used polls (in the audit's poll order) and two counts over every poll;
+ * the same as {@link headline} over the items they come from.
+ */
+export function headlineOfUsed(
+  used: readonly AuditPollDto[],
+  counts: { pollsTotal: number; notComputable: number },
+  elections: readonly ElectionRow[],
+  contests: readonly ContestRow[],
+): AuditHeadline {
   const oriented = used.filter((i) => i.refBasis === 'blocs');
   let interval: [number, number] | null = null;
   let meanSigned: number | null = mean(oriented.map((i) => i.marginError!));
@@ -162,10 +187,10 @@ export function headline(items: readonly AuditPollDto[], settings: AuditSettings
   }
   const calls = used.filter((i) => i.winnerCalled !== null);
   return {
-    pollsUsed: used.length, pollsTotal: items.length, meanAbsMarginError: mean(used.map((i) => i.absMarginError!)), meanSignedError: meanSigned,
+    pollsUsed: used.length, pollsTotal: counts.pollsTotal, meanAbsMarginError: mean(used.map((i) => i.absMarginError!)), meanSignedError: meanSigned,
     meanSignedErrorInterval: interval, signedDirection: direction, marginCoverage: rate(used.map((i) => i.marginCovered)),
     shareCoverage: rate(used.map((i) => i.shareCovered)), winnerCalledRate: rate(used.map((i) => i.winnerCalled)), calls: calls.length,
-    noCalls: used.length - calls.length, notComputable: items.filter((i) => i.error !== null).length,
+    noCalls: used.length - calls.length, notComputable: counts.notComputable,
   };
 }
 

@@ -37,7 +37,8 @@ export interface PartText {
   json: string;
 }
 
-interface PartRow {
+/** One part compressed, ready to store. */
+export interface PartRow {
   kind: AuditPartKind;
   partKey: string;
   chunk: number;
@@ -46,10 +47,9 @@ interface PartRow {
 
 const gzipAsync = promisify(gzip);
 
-/** gzip at level 1: JSON of numbers shrinks about 5-fold and the compression runs at ~100 MB/s. */
-function compress(part: PartText): Promise<PartRow> {
-  const json = part.json;
-  return gzipAsync(json, { level: 1, strategy: zlib.Z_DEFAULT_STRATEGY }).then((payload) => ({ kind: part.kind, partKey: part.partKey, chunk: part.chunk, payload }));
+/** gzip at level 1 on the thread pool: JSON of numbers shrinks about 5-fold at ~100 MB/s. */
+export function compressPart(part: PartText): Promise<PartRow> {
+  return gzipAsync(part.json, { level: 1, strategy: zlib.Z_DEFAULT_STRATEGY }).then((payload) => ({ kind: part.kind, partKey: part.partKey, chunk: part.chunk, payload }));
 }
 
 function describe(part: { kind: AuditPartKind; partKey: string; chunk: number }) {
@@ -78,36 +78,75 @@ async function insertRows(c: RawConnection, auditId: number, rows: readonly Part
 }
 
 /**
- * Stores the parts on `c` (the caller's transaction's connection), compressing each on the thread
- * pool as soon as it is produced and sending compressed parts in multi-row INSERTs of about
- * BATCH_BYTES, in order. `parts` is read lazily: between two parts the event loop turns, so the
- * compression and the server's writes proceed while the next part is computed.
+ * Writes compressed parts on `c` (the caller's transaction's connection) in multi-row INSERTs of
+ * about BATCH_BYTES, in the order they are added, while the caller goes on producing parts.
+ * `finish` waits for every write and throws the first failure.
+ */
+export class PartWriter {
+  private chain: Promise<void> = Promise.resolve();
+  private batch: Promise<PartRow>[] = [];
+  private expectedBytes = 0;
+  private failure: { error: unknown } | null = null;
+  private finished = false;
+
+  constructor(private readonly c: RawConnection, private readonly auditId: number) {}
+
+  get failed(): boolean {
+    return this.failure !== null;
+  }
+
+  /** Adds a part: a compressed row, or the promise of one (failures surface in `finish`). */
+  add(row: PartRow | Promise<PartRow>, expectedBytes: number) {
+    if (this.finished) {
+      // A part after `finish` would never be written: fail the audit rather than lose it.
+      this.failure ??= { error: new Error('a part of the audit arrived after its parts were all written') };
+      return;
+    }
+    const pending = Promise.resolve(row);
+    pending.catch(() => undefined);
+    this.batch.push(pending);
+    this.expectedBytes += expectedBytes;
+    if (this.expectedBytes >= BATCH_BYTES) this.flush();
+  }
+
+  /** Adds a part as JSON text, compressed on the thread pool. */
+  addText(part: PartText) {
+    // ~5:1 compression: the expected stored bytes.
+    this.add(compressPart(part), part.json.length / 5);
+  }
+
+  private flush() {
+    if (!this.batch.length) return;
+    const rows = this.batch;
+    this.batch = [];
+    this.expectedBytes = 0;
+    this.chain = this.chain.then(async () => {
+      if (!this.failure) await insertRows(this.c, this.auditId, await Promise.all(rows));
+    });
+    this.chain.catch((error: unknown) => (this.failure ??= { error }));
+  }
+
+  async finish(): Promise<void> {
+    this.finished = true;
+    this.flush();
+    await this.chain.catch(() => undefined);
+    if (this.failure) throw this.failure.error;
+  }
+}
+
+/**
+ * Stores the parts on `c`, compressing each on the thread pool as soon as it is produced.
+ * `parts` is read lazily: between two parts the event loop turns, so the compression and the
+ * server's writes proceed while the next part is computed.
  */
 export async function storeParts(c: RawConnection, auditId: number, parts: Iterable<PartText>): Promise<void> {
-  let chain: Promise<void> = Promise.resolve();
-  let failed: unknown = null;
-  let batch: Promise<PartRow>[] = [];
-  let batchChars = 0;
-  const flush = () => {
-    if (!batch.length) return;
-    const rows = batch;
-    batch = [];
-    batchChars = 0;
-    chain = chain.then(async () => insertRows(c, auditId, await Promise.all(rows)));
-    chain.catch((err: unknown) => (failed ??= err));
-  };
+  const writer = new PartWriter(c, auditId);
   for (const part of parts) {
-    if (failed) break;
-    const pending = compress(part);
-    pending.catch(() => undefined);
-    batch.push(pending);
-    batchChars += part.json.length;
-    // ~5:1 compression: about BATCH_BYTES of compressed payload per INSERT.
-    if (batchChars >= BATCH_BYTES * 5) flush();
+    if (writer.failed) break;
+    writer.addText(part);
     await new Promise((resolve) => setImmediate(resolve));
   }
-  flush();
-  await chain;
+  await writer.finish();
 }
 
 /** The JSON text of a stored payload. */
