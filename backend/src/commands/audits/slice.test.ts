@@ -7,7 +7,7 @@ const election = (id: number): ElectionRow => ({
   id, key: `e${id}`, name: `E${id}`, date: '2030-05-05', jurisdiction: 'X', blocA: null, blocB: null, blackoutStart: null, blackoutEnd: null, fictional: true,
 });
 const contest = (id: number, electionId: number): ContestRow => ({
-  id, key: `c${id}`, name: `C${id}`, kind: 'candidate_race', electionId, status: 'certified', certifiedOn: null, certifyingBody: null, sourceUrl: null,
+  id, key: `c${id}`, name: `C${id}`, kind: 'candidate', electionId, status: 'certified', certifiedOn: null, certifyingBody: null, sourceUrl: null,
   rejectedBallots: null, electorate: null, options: [],
 });
 

@@ -1,4 +1,4 @@
-import { isUtf8 } from 'node:buffer';
+import { isAscii, isUtf8 } from 'node:buffer';
 import Papa from 'papaparse';
 import type { ImportRowError } from '@veracast/shared-types';
 
@@ -84,6 +84,8 @@ export function openCsv(buffer: Buffer): CsvReader {
     const delimiter = (firstLine.match(/;/g)?.length ?? 0) > (firstLine.match(/,/g)?.length ?? 0) ? ';' : ',';
     const newline = buffer.indexOf(0x0d, start) === -1 ? '\n' : guessNewline(buffer.toString('utf8', start, Math.min(buffer.length, start + 4 * 1024 * 1024 + 4)));
     const len = buffer.length;
+    // An all-ASCII file (the usual case) decodes as single-byte text, without UTF-8 decoding.
+    const encoding: BufferEncoding = isAscii(buffer) ? 'latin1' : 'utf8';
     let pos = start;
     /** The next line (as `text.split(newline)` would give it), or null past the end. */
     // Searching for a byte is cheaper than for a one-character string (no conversion per call).
@@ -92,7 +94,7 @@ export function openCsv(buffer: Buffer): CsvReader {
       if (pos > len) return null;
       let end = buffer.indexOf(needle, pos);
       if (end === -1) end = len;
-      const line = buffer.toString('utf8', pos, end);
+      const line = buffer.toString(encoding, pos, end);
       pos = end + newline.length;
       return line;
     };

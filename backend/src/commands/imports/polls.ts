@@ -343,7 +343,9 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
   // index), then the stored values of those only (none on a first import).
   const existing = new Map<string, { id: number; sig: string }>();
   const existingKeys: string[] = [];
-  for (const part of chunk(finalPolls.map((p) => p.key), 5000)) {
+  // Into an empty archive (a first load) there is nothing to look up.
+  const anyPoll = (await sequelize.query('SELECT 1 FROM polls LIMIT 1', { type: QueryTypes.SELECT })).length > 0;
+  for (const part of anyPoll ? chunk(finalPolls.map((p) => p.key), 5000) : []) {
     const found = await sequelize.query<{ key: string }>('SELECT `key` FROM polls WHERE `key` IN (:keys)', { replacements: { keys: part }, type: QueryTypes.SELECT });
     for (const r of found) existingKeys.push(r.key);
   }
