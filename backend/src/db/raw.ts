@@ -3,6 +3,7 @@ import type { Sequelize, Transaction } from 'sequelize';
 /** The mariadb connector's connection as Sequelize's mariadb dialect holds it (the calls used here). */
 export interface RawConnection {
   query(options: { sql: string } & Record<string, unknown>, values?: unknown[]): Promise<unknown>;
+  batch(sql: string, values: unknown[][]): Promise<unknown>;
 }
 
 interface ConnectionManager {

@@ -6,6 +6,7 @@ import {
 } from '@veracast/shared-types';
 import { applyColumnMap, ImportFileError, isIsoDate, isUrl, KEY_RE, normalizeName, openCsv, parseBool, refuseRespondentLevel, requireColumns } from './csv';
 import { chunk, Collector, recordImport, type ImportOptions } from './common';
+import { withConnection } from '../../db/raw';
 import type { ImportOutcome } from './results';
 
 export interface PollImportOptions extends ImportOptions {
@@ -520,23 +521,21 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
         for (const p of changed) ids.set(p.key, updatedIdOf.get(p)!);
         await sequelize.query('DELETE FROM poll_shares WHERE poll_id IN (:ids)', { replacements: { ids: changed.map((p) => updatedIdOf.get(p)!) }, transaction });
       }
-      const shareRows: string[] = [];
+      const shareRows: (string | number)[][] = [];
       for (const p of part) {
         const id = ids.get(p.key)!;
-        // Option keys match KEY_RE: quoted as they are.
         const s = p.draft.shares;
-        for (let j = 0; j < s.length; j += 3) shareRows.push(`(${id},'${s[j] as string}',${round3(s[j + 1] as number)})`);
+        for (let j = 0; j < s.length; j += 3) shareRows.push([id, s[j] as string, round3(s[j + 1] as number)]);
       }
-      const statements = chunk(shareRows, 20000).map((rows) => `INSERT INTO poll_shares (poll_id, option_key, share) VALUES ${rows.join(',')}`);
-      for (let k = 0; k < statements.length; k++) {
-        const running = sequelize.query(statements[k]!, { transaction });
-        if (k === statements.length - 1 && following) {
-          running.catch(() => undefined); // awaited just below; a failure must not count as unhandled meanwhile
-          await yieldToIo();
-          next = prepare(following);
-        }
-        await running;
+      // The shares go in one bulk statement (MariaDB's binary bulk protocol: one prepared
+      // INSERT, every row's values sent as binary, no SQL text to parse per row).
+      const running = withConnection(sequelize, transaction, (c) => c.batch('INSERT INTO poll_shares (poll_id, option_key, share) VALUES (?, ?, ?)', shareRows));
+      if (following) {
+        running.catch(() => undefined); // awaited just below; a failure must not count as unhandled meanwhile
+        await yieldToIo();
+        next = prepare(following);
       }
+      await running;
       if (!next && following) next = prepare(following);
       batch++;
       await opts.afterBatch?.(batch);
