@@ -158,19 +158,24 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
     requireColumns(headers, POLL_COLUMNS);
     const optionCol = at.option_key ?? -1;
     const shareCol = at.share ?? -1;
+    // A poll's rows usually come one after another: the previous row's draft is tried first.
+    let previous: PollDraft | undefined;
     rowCount = csv.forEachRow((cells, index) => {
       const key = cell(cells, keyCol);
       if (!key) return c.add(index, 'poll_key', 'required', 'poll_key is required');
-      let d = drafts.get(key);
+      let d = previous !== undefined && previous.key === key ? previous : drafts.get(key);
+      previous = d;
       if (!d) {
         d = { key, firstIndex: index, lastIndex: index, scattered: null, cells: keepCells(cells), shares: [] };
         drafts.set(key, d);
+        previous = d;
       } else {
+        const firstCells = d.cells;
         for (let j = 0; j < fieldCol.length; j++) {
           const col = fieldCol[j]!;
           if (col < 0) continue;
-          const v = cell(cells, col);
-          const first = cell(d.cells, col);
+          const v = cells[col] ?? '';
+          const first = firstCells[col] ?? '';
           if (v !== first) {
             const f = POLL_FIELDS[j]!;
             c.add(index, f, 'duplicate_key', `poll ${key} has ${f} "${v}" here but "${first}" on row ${csv.lineOf(d.firstIndex)}`);
