@@ -42,5 +42,6 @@ export function requireSample(parameter: string, xs: readonly number[], min: num
   if (!Array.isArray(xs) || xs.length < min) {
     throw new MetricInputError(parameter, `must hold at least ${min} value${min === 1 ? '' : 's'}`);
   }
-  xs.forEach((x, i) => requireFinite(`${parameter}[${i}]`, x));
+  // An entry's name is built only when it fails (samples can be long and checked often).
+  for (let i = 0; i < xs.length; i++) if (!Number.isFinite(xs[i])) requireFinite(`${parameter}[${i}]`, xs[i]!);
 }

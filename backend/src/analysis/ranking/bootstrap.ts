@@ -220,35 +220,41 @@ export function bootstrapRanks(
   }
   for (const list of entries) for (const e of list) e.total = sum(e.ds);
 
-  // The same entries, flat: firm fi's are entryFrom[fi] … entryFrom[fi + 1] − 1, each with its
-  // contest, its number of d_j values, their sum and their sum of squares.
-  const entryFrom = new Int32Array(firms.length + 1);
+  // The same entries by contest (contest c's are entryFrom[c] … entryFrom[c + 1] − 1), each with
+  // its firm, its number of d_j values, their sum and their sum of squares: a draw visits only the
+  // contests it drew.
+  const G = contestKeys.length;
+  const perContest = new Int32Array(G + 1);
   let entryCount = 0;
-  entries.forEach((list, fi) => {
-    entryFrom[fi] = entryCount;
+  for (const list of entries) {
+    for (const entry of list) perContest[entry.contest + 1] = (perContest[entry.contest + 1] as number) + 1;
     entryCount += list.length;
-  });
-  entryFrom[firms.length] = entryCount;
-  const entryContest = new Int32Array(entryCount);
+  }
+  for (let c = 0; c < G; c += 1) perContest[c + 1] = (perContest[c + 1] as number) + (perContest[c] as number);
+  const entryFrom = perContest.slice();
+  const fill = perContest.slice(0, G);
+  const entryFirm = new Int32Array(entryCount);
   const entryN = new Int32Array(entryCount);
   const entryTotal = new Float64Array(entryCount);
   const entrySquares = new Float64Array(entryCount);
-  let e = 0;
-  for (const list of entries) {
+  entries.forEach((list, fi) => {
     for (const entry of list) {
-      entryContest[e] = entry.contest;
+      const e = fill[entry.contest] as number;
+      fill[entry.contest] = e + 1;
+      entryFirm[e] = fi;
       entryN[e] = entry.ds.length;
       entryTotal[e] = entry.total;
       let q = 0;
       for (const d of entry.ds) q += d * d;
       entrySquares[e] = q;
-      e++;
     }
-  }
+  });
 
-  const G = contestKeys.length;
   const rng = seedrandom(String(seed));
   const multiplicity = new Int32Array(G);
+  const firmN = new Float64Array(firms.length);
+  const firmTotal = new Float64Array(firms.length);
+  const firmSquares = new Float64Array(firms.length);
   const tally = new RankTally(firms.length);
   const excessDraws: number[][] = firms.map(() => []);
   const shrunkDraws: number[][] = firms.map(() => []);
@@ -260,24 +266,30 @@ export function bootstrapRanks(
       const c = Math.floor(rng() * G);
       multiplicity[c] = (multiplicity[c] as number) + 1;
     }
+    // Per firm: n, Σ m·total and Σ m·Σd² over the drawn contests; then
+    // ss = Σ m·Σ(d − mean)² = Σ m·Σd² − total·mean.
+    firmN.fill(0);
+    firmTotal.fill(0);
+    firmSquares.fill(0);
+    for (let c = 0; c < G; c += 1) {
+      const m = multiplicity[c] as number;
+      if (m === 0) continue;
+      for (let x = entryFrom[c] as number, to = entryFrom[c + 1] as number; x < to; x += 1) {
+        const fi = entryFirm[x] as number;
+        firmN[fi] = (firmN[fi] as number) + m * (entryN[x] as number);
+        firmTotal[fi] = (firmTotal[fi] as number) + m * (entryTotal[x] as number);
+        firmSquares[fi] = (firmSquares[fi] as number) + m * (entrySquares[x] as number);
+      }
+    }
     const present: number[] = [];
     const summaries: { mean: number; n: number; ss: number }[] = [];
     for (let fi = 0; fi < firms.length; fi += 1) {
-      // One pass: n, Σ m·total and Σ m·Σd²; then ss = Σ m·Σ(d − mean)² = Σ m·Σd² − total·mean.
-      let n = 0;
-      let total = 0;
-      let squares = 0;
-      for (let x = entryFrom[fi] as number, to = entryFrom[fi + 1] as number; x < to; x += 1) {
-        const m = multiplicity[entryContest[x] as number] as number;
-        if (m === 0) continue;
-        n += m * (entryN[x] as number);
-        total += m * (entryTotal[x] as number);
-        squares += m * (entrySquares[x] as number);
-      }
+      const n = firmN[fi] as number;
       if (n === 0) continue;
+      const total = firmTotal[fi] as number;
       const mean = total / n;
       // Rounding can leave a hair below 0 when every value is the same.
-      const ss = Math.max(0, squares - total * mean);
+      const ss = Math.max(0, (firmSquares[fi] as number) - total * mean);
       present.push(fi);
       summaries.push({ mean, n, ss });
       (excessDraws[fi] as number[]).push(mean);

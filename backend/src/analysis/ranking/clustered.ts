@@ -54,7 +54,7 @@ export function clusteredMean(
   level = 0.95,
 ): ClusteredMean {
   requireArray('values', values, 2);
-  values.forEach((x, i) => requireFinite(`values[${i}]`, x));
+  for (let i = 0; i < values.length; i++) if (!Number.isFinite(values[i])) requireFinite(`values[${i}]`, values[i]!);
   requireArray('clusters', clusters, 0);
   if (clusters.length !== values.length) {
     throw new MetricInputError('clusters', 'must have the same length as values');

@@ -71,6 +71,8 @@ export interface ContestAdjustedExcess {
 export function contestAdjustedExcess(polls: readonly ExcessPoll[]): ContestAdjustedExcess {
   requireArray('polls', polls, 1);
   polls.forEach((p, i) => {
+    const pollsterOk = typeof p.pollster === 'string' ? p.pollster.length > 0 : Number.isFinite(p.pollster);
+    if (pollsterOk && typeof p.contestKey === 'string' && p.contestKey.length > 0 && Number.isFinite(p.absMarginError) && p.absMarginError >= 0) return; // names are built only on failure
     requirePollsterId(`polls[${i}].pollster`, p.pollster);
     requireKey(`polls[${i}].contestKey`, p.contestKey);
     requireNonNegative(`polls[${i}].absMarginError`, p.absMarginError);

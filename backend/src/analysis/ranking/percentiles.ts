@@ -17,7 +17,7 @@ import { requireArray, requireLevel } from './validate';
 
 function sortedCopy(parameter: string, values: readonly number[]): number[] {
   requireArray(parameter, values, 1);
-  values.forEach((x, i) => requireFinite(`${parameter}[${i}]`, x));
+  for (let i = 0; i < values.length; i++) if (!Number.isFinite(values[i])) requireFinite(`${parameter}[${i}]`, values[i]!);
   return [...values].sort((a, b) => a - b);
 }
 

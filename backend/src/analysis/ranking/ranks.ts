@@ -20,7 +20,7 @@ import { requireArray } from './validate';
  */
 export function averageRanks(values: readonly number[]): number[] {
   requireArray('values', values, 1);
-  values.forEach((x, i) => requireFinite(`values[${i}]`, x));
+  for (let i = 0; i < values.length; i++) if (!Number.isFinite(values[i])) requireFinite(`values[${i}]`, values[i]!);
   const order = values.map((_, i) => i).sort((a, b) => (values[a] as number) - (values[b] as number) || a - b);
   const ranks = new Array<number>(values.length);
   let start = 0;

@@ -172,7 +172,21 @@ function validate(polls: readonly ScorecardPoll[], settings: ScorecardSettings):
   const keys = new Set<string>();
   const names = new Map<PollsterId, string>();
   const elections = new Map<string, string>();
+  const key = (x: unknown) => typeof x === 'string' && x.length > 0;
+  const flag = (x: unknown) => x === true || x === false || x === null;
   polls.forEach((p, i) => {
+    if (typeof p === 'object' && p !== null && key(p.pollKey) && !keys.has(p.pollKey) && key(p.pollsterName) && key(p.contestKey) && key(p.electionKey)
+      && (typeof p.pollster === 'string' ? p.pollster.length > 0 : Number.isFinite(p.pollster))
+      && (names.get(p.pollster) ?? p.pollsterName) === p.pollsterName && (elections.get(p.contestKey) ?? p.electionKey) === p.electionKey
+      && Number.isFinite(p.signedError) && Number.isFinite(p.absMarginError) && p.absMarginError >= 0
+      && flag(p.winnerCalled) && flag(p.marginCovered) && flag(p.shareCovered)
+      && (p.disclosure === null || (Number.isFinite(p.disclosure) && p.disclosure >= 0 && p.disclosure <= 1))) {
+      // A valid poll (the usual case): recorded without building the names of its fields.
+      keys.add(p.pollKey);
+      names.set(p.pollster, p.pollsterName);
+      elections.set(p.contestKey, p.electionKey);
+      return;
+    }
     const at = `polls[${i}]`;
     if (typeof p !== 'object' || p === null) throw new MetricInputError(at, 'must be an object');
     requireKey(`${at}.pollKey`, p.pollKey);

@@ -102,6 +102,7 @@ export function betweenFirmVariance(
   requireArray('firms', firms, 2);
   requirePositive('sigma2', sigma2);
   firms.forEach((f, i) => {
+    if (Number.isFinite(f.mean) && Number.isFinite(f.n) && f.n > 0) return; // names are built only on failure
     requireFinite(`firms[${i}].mean`, f.mean);
     requirePositive(`firms[${i}].n`, f.n);
   });
@@ -195,6 +196,7 @@ export interface FirmShrinkage {
 export function shrinkFirmMeans(firms: readonly FirmSummary[], mu = 0): FirmShrinkage {
   requireArray('firms', firms, 1);
   firms.forEach((f, i) => {
+    if (Number.isFinite(f.mean) && Number.isFinite(f.n) && f.n > 0 && Number.isFinite(f.ss) && f.ss >= 0) return; // names are built only on failure
     requireFinite(`firms[${i}].mean`, f.mean);
     requirePositive(`firms[${i}].n`, f.n);
     requireNonNegative(`firms[${i}].ss`, f.ss);

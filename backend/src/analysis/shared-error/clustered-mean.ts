@@ -60,7 +60,7 @@ export function clusteredMean(
 ): ClusteredMeanResult {
   requireSample('values', values, 2);
   requireSameLength('clusters', clusters, 'values', values);
-  clusters.forEach((c, i) => requireKey(`clusters[${i}]`, c));
+  for (let i = 0; i < clusters.length; i++) if (!(typeof clusters[i] === 'string' && clusters[i]!.length > 0)) requireKey(`clusters[${i}]`, clusters[i]);
   requireSpread('values', values);
 
   const n = values.length;

@@ -53,7 +53,7 @@ export interface DerSimonianLairdResult {
 export function derSimonianLaird(y: readonly number[], v: readonly number[]): DerSimonianLairdResult {
   requireSample('y', y, 2);
   requireSameLength('v', v, 'y', y);
-  v.forEach((x, i) => requirePositive(`v[${i}]`, x));
+  for (let i = 0; i < v.length; i++) if (!(Number.isFinite(v[i]) && v[i]! > 0)) requirePositive(`v[${i}]`, v[i]!);
 
   const k = y.length;
   const w = v.map((x) => 1 / x);

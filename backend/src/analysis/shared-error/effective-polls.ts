@@ -179,6 +179,7 @@ export function contestAverageSummary(
     throw new MetricInputError('polls', 'must hold at least 1 poll');
   }
   polls.forEach((p, i) => {
+    if (Number.isFinite(p.error) && Number.isFinite(p.samplingVariance) && p.samplingVariance > 0) return; // names are built only on failure
     requireFinite(`polls[${i}].error`, p.error);
     requirePositive(`polls[${i}].samplingVariance`, p.samplingVariance);
   });

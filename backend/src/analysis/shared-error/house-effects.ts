@@ -60,6 +60,7 @@ export function validateFirmContestErrors(
     throw new MetricInputError(parameter, 'must hold at least 1 poll');
   }
   polls.forEach((p, i) => {
+    if (typeof p.contestKey === 'string' && p.contestKey.length > 0 && typeof p.firm === 'string' && p.firm.length > 0 && Number.isFinite(p.error)) return; // names are built only on failure
     requireKey(`${parameter}[${i}].contestKey`, p.contestKey);
     requireKey(`${parameter}[${i}].firm`, p.firm);
     requireFinite(`${parameter}[${i}].error`, p.error);
