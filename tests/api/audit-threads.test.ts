@@ -36,7 +36,7 @@ async function stored(id: number) {
     'SELECT kind, part_key, chunk, encoding, payload FROM audit_parts WHERE audit_id = ? ORDER BY kind, part_key, chunk',
     { replacements: [id], type: QueryTypes.SELECT },
   );
-  return { audit, parts: parts.map((p) => ({ kind: p.kind, partKey: p.part_key, chunk: p.chunk, encoding: p.encoding, json: gunzipSync(p.payload).toString('utf8') })) };
+  return { audit, parts: parts.map((p) => ({ kind: p.kind, partKey: p.part_key, chunk: p.chunk, encoding: p.encoding, payload: gunzipSync(p.payload).toString('base64') })) };
 }
 
 describe('audits over worker threads', () => {

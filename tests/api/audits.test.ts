@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { gunzipSync } from 'node:zlib';
 import request from 'supertest';
 import { QueryTypes } from 'sequelize';
+import { decodePollChunk } from '../../backend/src/commands/audits/stored-polls';
 import { createTestApp, type SignedInAgent, type TestApp } from '../helpers/test-app';
 import { buildPoll, buildResultRow, pollsCsv, resultsCsv } from '../helpers/factories';
 
@@ -158,12 +159,17 @@ describe('storage', () => {
     expect(parts.map((p) => [p.kind, p.part_key, p.chunk, p.encoding])).toEqual([
       ['scorecards', '', 0, 'gzip'], ['shared_error', E, 0, 'gzip'], ['polls', E, 0, 'gzip'],
     ]);
-    const chunk = JSON.parse(gunzipSync(parts[2]!.payload as Buffer).toString('utf8')) as { format: string; fields: string[]; rows: unknown[][] };
-    expect(chunk.format).toBe('audit-polls/2');
+    // A binary block: 'VCP3', the JSON header's length, the header (text columns), then number and flag columns.
+    const block = gunzipSync(parts[2]!.payload as Buffer);
+    expect(block.subarray(0, 4).toString('latin1')).toBe('VCP3');
+    const header = JSON.parse(block.toString('utf8', 8, 8 + block.readUInt32LE(4))) as { format: string; n: number; values: Record<string, unknown[]> };
+    expect(header.format).toBe('audit-polls/3');
+    const chunk = decodePollChunk(block);
     const api = await pollsOf(a.id);
     expect(api.size).toBe(8);
-    expect(chunk.rows).toHaveLength(8);
-    expect(chunk.rows.map((r) => r[chunk.fields.indexOf('pollKey')]).sort()).toEqual([...api.keys()].sort());
+    expect(header.n).toBe(8);
+    expect([...(header.values.pollKey as string[])].sort()).toEqual([...api.keys()].sort());
+    expect(chunk).toEqual([...api.values()].sort((a, b) => (`${a.contestKey}|${a.pollKey}` < `${b.contestKey}|${b.pollKey}` ? -1 : 1)));
     expect(await rows(`SELECT 1 FROM audit_polls WHERE audit_id = ${a.id}`)).toEqual([]);
   });
 

@@ -57,7 +57,7 @@ async function runScorecards(job: number, settings: AuditSettings, seed: number,
   if (!own) throw new Error(`audit job ${job} has no slice here`);
   jobs.delete(job);
   const used = mergeUsed([own, ...others]);
-  const part = await compressPart({ kind: 'scorecards', partKey: '', chunk: 0, json: JSON.stringify(scorecardsFor(used, settings, seed)) });
+  const part = await compressPart({ kind: 'scorecards', partKey: '', chunk: 0, content: JSON.stringify(scorecardsFor(used, settings, seed)) });
   post({ type: 'part', job, part });
   post({ type: 'scorecards-done', job });
 }

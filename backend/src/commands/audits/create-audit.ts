@@ -104,7 +104,7 @@ export async function createAudit(
           // Lets the compression, the writes and the workers' messages proceed between parts.
           await new Promise((resolve) => setImmediate(resolve));
         }
-        if (!jobs.length) writer.addText({ kind: 'scorecards', partKey: '', chunk: 0, json: JSON.stringify(scorecardsFor(allUsed, settings, seed)) });
+        if (!jobs.length) writer.addText({ kind: 'scorecards', partKey: '', chunk: 0, content: JSON.stringify(scorecardsFor(allUsed, settings, seed)) });
         await Promise.all(jobs.map((j) => j.done));
         await writer.finish();
       });

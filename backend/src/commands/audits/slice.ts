@@ -52,12 +52,12 @@ export function* sliceParts(outcome: SliceOutcome, settings: AuditSettings, elec
   for (const [electionKey, polls] of byElection) {
     polls.sort((a, b) => compare(a.contestKey, b.contestKey) || compare(a.pollKey, b.pollKey));
     for (let start = 0, chunk = 0; start < polls.length; start += POLLS_PER_CHUNK, chunk++) {
-      yield { kind: 'polls', partKey: electionKey, chunk, json: encodePollChunk(polls.slice(start, start + POLLS_PER_CHUNK)) };
+      yield { kind: 'polls', partKey: electionKey, chunk, content: encodePollChunk(polls.slice(start, start + POLLS_PER_CHUNK)) };
     }
   }
   let n = 0;
   for (const analysis of sharedErrorsFor(outcome.used, settings, electionKeys)) {
-    yield { kind: 'shared_error', partKey: electionKeys[n++]!, chunk: 0, json: JSON.stringify(analysis) };
+    yield { kind: 'shared_error', partKey: electionKeys[n++]!, chunk: 0, content: JSON.stringify(analysis) };
   }
 }
 
