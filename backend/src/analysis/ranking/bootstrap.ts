@@ -64,6 +64,32 @@ class RankTally {
   }
 }
 
+/**
+ * One draw's sums per firm over the contests drawn (multiplicity m > 0): n += m·k, total +=
+ * m·Σd, squares += m·Σd² (the firm arrays are zeroed first). A small function of its own, so that
+ * the engine compiles this hot loop on its own.
+ */
+function accumulateDraw(
+  multiplicity: Int32Array, entryFrom: Int32Array, entryFirm: Int32Array, entryN: Int32Array, entryTotal: Float64Array, entrySquares: Float64Array,
+  firmN: Float64Array, firmTotal: Float64Array, firmSquares: Float64Array,
+): void {
+  firmN.fill(0);
+  firmTotal.fill(0);
+  firmSquares.fill(0);
+  const G = multiplicity.length;
+  for (let c = 0; c < G; c += 1) {
+    const m = multiplicity[c]!;
+    if (m === 0) continue;
+    const to = entryFrom[c + 1]!;
+    for (let x = entryFrom[c]!; x < to; x += 1) {
+      const fi = entryFirm[x]!;
+      firmN[fi]! += m * entryN[x]!;
+      firmTotal[fi]! += m * entryTotal[x]!;
+      firmSquares[fi]! += m * entrySquares[x]!;
+    }
+  }
+}
+
 function sortedInterval(values: number[], level: number): Interval | null {
   if (values.length === 0) return null;
   return intervalOfSorted([...values].sort((a, b) => a - b), level, 'linear');
@@ -268,19 +294,7 @@ export function bootstrapRanks(
     }
     // Per firm: n, Σ m·total and Σ m·Σd² over the drawn contests; then
     // ss = Σ m·Σ(d − mean)² = Σ m·Σd² − total·mean.
-    firmN.fill(0);
-    firmTotal.fill(0);
-    firmSquares.fill(0);
-    for (let c = 0; c < G; c += 1) {
-      const m = multiplicity[c] as number;
-      if (m === 0) continue;
-      for (let x = entryFrom[c] as number, to = entryFrom[c + 1] as number; x < to; x += 1) {
-        const fi = entryFirm[x] as number;
-        firmN[fi] = (firmN[fi] as number) + m * (entryN[x] as number);
-        firmTotal[fi] = (firmTotal[fi] as number) + m * (entryTotal[x] as number);
-        firmSquares[fi] = (firmSquares[fi] as number) + m * (entrySquares[x] as number);
-      }
-    }
+    accumulateDraw(multiplicity, entryFrom, entryFirm, entryN, entryTotal, entrySquares, firmN, firmTotal, firmSquares);
     const present: number[] = [];
     const summaries: { mean: number; n: number; ss: number }[] = [];
     for (let fi = 0; fi < firms.length; fi += 1) {
