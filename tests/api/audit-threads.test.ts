@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { auditCreateSchema, type AuditSettings } from '@veracast/shared-types';
 import { createAudit } from '../../backend/src/commands/audits/create-audit';
+import { ensureAnalyses } from '../../backend/src/commands/audits/analyses';
 import { AuditWorker, configureAuditWorkers, readyAuditWorkers, stopAuditWorkers } from '../../backend/src/commands/audits/workers';
 import { loadDemo } from '../../backend/src/commands/load-demo';
 import { createTestApp, type TestApp } from '../helpers/test-app';
@@ -43,6 +44,7 @@ describe('audits over worker threads', () => {
   it('store the same rows, headline, scorecards and analyses as the main thread alone, with 1 and 2 workers', async () => {
     const alone = await createAudit(t.ctx.sequelize, 'main thread', settings, null, null, { parallel: false });
     expect(alone.threads).toBe(1);
+    expect(await alone.analyses).toEqual({ ok: true });
     const expected = await stored(alone.id);
     expect(expected.audit!.poll_count).toBeGreaterThan(900);
     expect(expected.parts.filter((p) => p.kind === 'polls').length).toBe(settings.electionKeys.length);
@@ -51,8 +53,22 @@ describe('audits over worker threads', () => {
       configureAuditWorkers(workers);
       const split = await createAudit(t.ctx.sequelize, `${workers} workers`, settings, null, null, { parallel: true });
       expect(split.threads).toBe(1 + workers);
+      expect(await split.analyses).toEqual({ ok: true });
       expect(await stored(split.id)).toEqual(expected);
     }
+  });
+
+  it('readers wait for the analyses that follow an audit, and recompute the same ones when they are missing', async () => {
+    const created = await createAudit(t.ctx.sequelize, 'analyses', settings, null, null, { parallel: false });
+    // Right after the audit is committed, a reader waits for the analyses being stored.
+    await ensureAnalyses(t.ctx.sequelize, created.id);
+    const expected = await stored(created.id);
+    expect(expected.parts.map((p) => p.kind)).toContain('scorecards');
+    // Lost (the process stopped before storing them): computed again from the stored poll rows, the same.
+    await t.ctx.sequelize.query("DELETE FROM audit_parts WHERE audit_id = ? AND kind <> 'polls'", { replacements: [created.id] });
+    expect((await stored(created.id)).parts.some((p) => p.kind === 'scorecards')).toBe(false);
+    await Promise.all([ensureAnalyses(t.ctx.sequelize, created.id), ensureAnalyses(t.ctx.sequelize, created.id)]);
+    expect(await stored(created.id)).toEqual(expected);
   });
 
   it('a worker that has stopped makes the audit fail and leaves nothing written', async () => {
@@ -70,5 +86,6 @@ describe('audits over worker threads', () => {
     expect(await readyAuditWorkers()).toEqual([]);
     const audit = await createAudit(t.ctx.sequelize, 'no workers', settings, null, null, { parallel: true });
     expect(audit.threads).toBe(1);
+    expect(await audit.analyses).toEqual({ ok: true });
   });
 });

@@ -3,6 +3,7 @@ import { gunzipSync } from 'node:zlib';
 import request from 'supertest';
 import { QueryTypes } from 'sequelize';
 import { decodePollChunk } from '../../backend/src/commands/audits/stored-polls';
+import { ensureAnalyses } from '../../backend/src/commands/audits/analyses';
 import { createTestApp, type SignedInAgent, type TestApp } from '../helpers/test-app';
 import { buildPoll, buildResultRow, pollsCsv, resultsCsv } from '../helpers/factories';
 
@@ -33,8 +34,10 @@ const polls = [
   ...buildPoll({ poll_key: 'csv-4', pollster: '@Mention Polls', contest_key: 'ref-c3' }, { red: 45, blue: 45 }),
 ];
 
+/** Creates an audit through the API and waits until its analyses are stored too (they follow the 201). */
 async function audit(undecided: 'raw' | 'proportional' | 'two_party', extra: object = {}) {
   const res = await analyst.post('/api/v1/audits').send({ name: `ref ${undecided}`, electionKeys: [E], undecided, finalOnly: false, ...extra }).expect(201);
+  await ensureAnalyses(t.ctx.sequelize, res.body.id as number);
   return res.body as { id: number; dataHash: string; outOfDate: boolean };
 }
 async function pollsOf(id: number) {

@@ -5,9 +5,8 @@
  */
 import { parentPort } from 'node:worker_threads';
 import type { AuditPollDto, AuditSettings } from '@veracast/shared-types';
-import { scorecardsFor } from './compute';
-import { compressPart, type PartRow } from './parts';
-import { computeSlice, mergeUsed, sliceParts, type AuditSlice, type SliceOutcome } from './slice';
+import { compressPart, type PartRow, type PartText } from './parts';
+import { computeSlice, mergeUsed, pollChunkParts, scorecardsPart, sharedErrorParts, type AuditSlice, type SliceOutcome } from './slice';
 
 export interface UsedRows {
   used: AuditPollDto[];
@@ -19,11 +18,15 @@ export type ToWorker =
   | { type: 'scorecards'; job: number; settings: AuditSettings; seed: number; others: UsedRows[] }
   | { type: 'forget'; job: number };
 
-/** Messages from the worker. */
+/**
+ * Messages from the worker, per job: 'used', then its poll chunks ('part' … 'polls-done'), then its
+ * elections' shared-error analyses ('part' … 'slice-done'), and when asked the scorecards.
+ */
 export type FromWorker =
   | { type: 'ready' }
   | ({ type: 'used'; job: number; total: number; notComputable: number } & UsedRows)
   | { type: 'part'; job: number; part: PartRow }
+  | { type: 'polls-done'; job: number }
   | { type: 'slice-done'; job: number }
   | { type: 'scorecards-done'; job: number }
   | { type: 'error'; job: number; message: string; stack: string | null };
@@ -38,17 +41,24 @@ const post = (m: FromWorker) => port.postMessage(m);
 const fail = (job: number, err: unknown) =>
   post({ type: 'error', job, message: err instanceof Error ? err.message : String(err), stack: err instanceof Error ? (err.stack ?? null) : null });
 
-async function runSlice(job: number, slice: AuditSlice, electionKeys: string[]) {
-  const outcome = computeSlice(slice);
-  jobs.set(job, outcome);
-  post({ type: 'used', job, used: outcome.used, total: outcome.total, notComputable: outcome.notComputable });
+/** Compresses parts as they are produced and posts each; resolves when every one is posted. */
+async function postParts(job: number, parts: Iterable<PartText>) {
   const pending: Promise<void>[] = [];
-  for (const text of sliceParts(outcome, slice.settings, electionKeys)) {
+  for (const text of parts) {
     pending.push(compressPart(text).then((part) => post({ type: 'part', job, part })));
     // Let finished compressions go out while the next part is computed.
     await new Promise((resolve) => setImmediate(resolve));
   }
   await Promise.all(pending);
+}
+
+async function runSlice(job: number, slice: AuditSlice, electionKeys: string[]) {
+  const outcome = computeSlice(slice);
+  jobs.set(job, outcome);
+  post({ type: 'used', job, used: outcome.used, total: outcome.total, notComputable: outcome.notComputable });
+  await postParts(job, pollChunkParts(outcome, electionKeys));
+  post({ type: 'polls-done', job });
+  await postParts(job, sharedErrorParts(outcome.used, slice.settings, electionKeys));
   post({ type: 'slice-done', job });
 }
 
@@ -56,9 +66,7 @@ async function runScorecards(job: number, settings: AuditSettings, seed: number,
   const own = jobs.get(job);
   if (!own) throw new Error(`audit job ${job} has no slice here`);
   jobs.delete(job);
-  const used = mergeUsed([own, ...others]);
-  const part = await compressPart({ kind: 'scorecards', partKey: '', chunk: 0, content: JSON.stringify(scorecardsFor(used, settings, seed)) });
-  post({ type: 'part', job, part });
+  await postParts(job, [scorecardsPart(mergeUsed([own, ...others]), settings, seed)]);
   post({ type: 'scorecards-done', job });
 }
 

@@ -3,22 +3,24 @@ import type { AuditPollDto, AuditSettings } from '@veracast/shared-types';
 import { CORE_VERSION } from '../../analysis/version';
 import { unprocessable } from '../../http/errors';
 import { withConnection } from '../../db/raw';
-import { headlineOfUsed, scorecardsFor, seedOf } from './compute';
+import { headlineOfUsed, seedOf } from './compute';
 import { hashInputs } from './inputs';
 import { countPolls, loadContests, loadElections, loadPollGroups } from '../../queries/archive';
-import { loadStoredPolls, PartWriter, type PartRow } from './parts';
-import { computeSlice, mergeUsed, sliceParts, splitElections, type AuditSlice } from './slice';
+import { loadStoredPolls, PartWriter, type PartRow, type PartText } from './parts';
+import { computeSlice, mergeUsed, pollChunkParts, scorecardsPart, sharedErrorParts, splitElections, type AuditSlice, type SliceOutcome } from './slice';
+import { trackAnalyses } from './analyses';
 import { readyAuditWorkers, type AuditWorker } from './workers';
 import type { FromWorker, UsedRows } from './audit-worker';
 
 /** Audits of fewer polls are computed on the main thread alone (a worker's round trip is not worth it). */
 export const PARALLEL_MIN_POLLS = 5000;
 /**
- * Share of the polls each thread takes: the main thread also reads and hashes the inputs (about
- * as long as computing a third of the polls), the first worker also makes the scorecards.
+ * Share of the polls each thread takes: the main thread also reads and hashes every input before
+ * it computes, so it takes less (measured best near 0.8 : 1.2 with one worker on 2 CPUs). The
+ * first worker's scorecards come after the audit is committed.
  */
-const MAIN_WEIGHT = 1.3;
-const SCORECARD_WORKER_WEIGHT = 0.7;
+const MAIN_WEIGHT = 0.8;
+const SCORECARD_WORKER_WEIGHT = 1.2;
 
 export interface CreateAuditOptions {
   /** Split the work over the audit worker threads; default: when there are PARALLEL_MIN_POLLS polls or more. */
@@ -30,19 +32,20 @@ export interface CreateAuditOptions {
 let nextJob = 1;
 
 /**
- * Creates a frozen audit: reads the chosen elections set-based, computes every poll's metrics,
- * the headline, the scorecards (seeded from the data hash) and the shared-error analysis per
- * election, and stores them with the settings, the data hash and the core's version, in one
- * transaction.
+ * Creates a frozen audit: reads the chosen elections set-based, computes every poll's metrics and
+ * the headline, and stores the audit — settings, data hash, core version, headline and every
+ * poll's row — in one transaction; resolves when that is committed. Its analyses (the scorecards,
+ * seeded from the data hash, and each election's shared-error analysis: views of the stored rows,
+ * see analyses.ts) are stored right after in a second transaction; `analyses` settles when they
+ * are (it never rejects), and readers wait for them through `ensureAnalyses`.
  *
  * Work: the elections are split into slices; the main thread computes one and each audit worker
  * (workers.ts) another at the same time, the first worker then the scorecards. Results do not
  * depend on the split: slices are whole elections and the used polls are merged back in the
  * audit's poll order before the headline and the scorecards.
  *
- * Storage (see parts.ts): the audit row (settings, headline), then compressed parts — each
- * election's poll rows in chunks, the scorecards, each election's shared-error analysis — written
- * while the rest is still being computed.
+ * Storage (see parts.ts): compressed parts — each election's poll rows in chunks, then the
+ * scorecards and each election's shared-error analysis — written while the rest is computed.
  */
 export async function createAudit(
   sequelize: Sequelize, name: string, settings: AuditSettings, userId: number | null, rerunOf: number | null = null, options: CreateAuditOptions = {},
@@ -58,7 +61,7 @@ export async function createAudit(
   const workers = (options.parallel ?? pollCount >= PARALLEL_MIN_POLLS) ? (options.workers ?? (await readyAuditWorkers())) : [];
   const groups = splitElections(elections, contests, pollsPerContest, [MAIN_WEIGHT, ...workers.map((_, k) => (k === 0 ? SCORECARD_WORKER_WEIGHT : 1))]);
   const slices: AuditSlice[] = groups.map((g) => ({ settings, elections: g.elections, contests: g.contests, polls: [] }));
-  const jobs: WorkerJob[] = [];
+  let jobs: WorkerJob[] = [];
   try {
     // The workers' polls are read first and handed over at once, so they start while the rest is read.
     const readOrder = [...slices.keys()].slice(1).concat(0);
@@ -84,7 +87,8 @@ export async function createAudit(
     const summary = JSON.stringify({ headline: headlineOfUsed(allUsed, counts, elections, contests) });
     jobs[0]?.requestScorecards(settings, seed, usedRows.filter((_, k) => k !== 1));
 
-    return await sequelize.transaction(async (transaction) => {
+    // The audit: its row and every poll row, in one transaction.
+    const created = await sequelize.transaction(async (transaction) => {
       const [id] = await sequelize.query(
         `INSERT INTO audits (name, settings, data_hash, core_version, poll_count, summary, scorecards, shared_error, rerun_of_id, created_by_id)
          VALUES (:name, :settings, :hash, :core, :count, :summary, NULL, NULL, :rerunOf, :userId)`,
@@ -97,57 +101,102 @@ export async function createAudit(
       const auditId = Number(id);
       await withConnection(sequelize, transaction, async (c) => {
         const writer = new PartWriter(c, auditId);
-        for (const job of jobs) job.sendPartsTo(writer);
-        for (const text of sliceParts(mine, settings, slices[0]!.elections.map((e) => e.key))) {
-          if (writer.failed) break;
-          writer.addText(text);
-          // Lets the compression, the writes and the workers' messages proceed between parts.
-          await new Promise((resolve) => setImmediate(resolve));
-        }
-        if (!jobs.length) writer.addText({ kind: 'scorecards', partKey: '', chunk: 0, content: JSON.stringify(scorecardsFor(allUsed, settings, seed)) });
-        await Promise.all(jobs.map((j) => j.done));
+        for (const job of jobs) job.sendPartsTo('polls', writer);
+        await writeParts(writer, pollChunkParts(mine, slices[0]!.elections.map((e) => e.key)));
+        await Promise.all(jobs.map((j) => j.pollsDone));
         await writer.finish();
       });
       return { id: auditId, dataHash, pollCount: counts.pollsTotal, threads: 1 + jobs.length };
     });
+
+    // Its analyses (views of the rows just stored), in a transaction of their own right after.
+    const releasing = jobs;
+    jobs = [];
+    const analyses = storeAnalyses(sequelize, created.id, releasing, mine, allUsed, settings, seed, slices[0]!.elections.map((e) => e.key))
+      .then(() => ({ ok: true as const }), (error: unknown) => ({ ok: false as const, error }))
+      .finally(() => {
+        for (const job of releasing) job.release();
+      });
+    trackAnalyses(created.id, analyses.then(() => undefined));
+    return { ...created, analyses };
   } finally {
     for (const job of jobs) job.release();
   }
 }
 
+/** Adds parts to the writer one at a time, letting compression, writes and worker messages proceed between them. */
+async function writeParts(writer: PartWriter, parts: Iterable<PartText>) {
+  for (const part of parts) {
+    if (writer.failed) break;
+    writer.addText(part);
+    await new Promise((resolve) => setImmediate(resolve));
+  }
+}
+
+/**
+ * Stores the scorecards and each election's shared-error analysis: the main thread's elections'
+ * here, the workers' from the workers (the first one also sends the scorecards), or all here when
+ * there is no worker.
+ */
+async function storeAnalyses(
+  sequelize: Sequelize, auditId: number, jobs: readonly WorkerJob[], mine: SliceOutcome, allUsed: readonly AuditPollDto[], settings: AuditSettings, seed: number,
+  myElections: readonly string[],
+) {
+  await sequelize.transaction((transaction) =>
+    withConnection(sequelize, transaction, async (c) => {
+      const writer = new PartWriter(c, auditId);
+      for (const job of jobs) job.sendPartsTo('analyses', writer);
+      await writeParts(writer, sharedErrorParts(mine.used, settings, myElections));
+      if (!jobs.length) writer.addText(scorecardsPart(allUsed, settings, seed));
+      await Promise.all(jobs.map((j) => j.done));
+      await writer.finish();
+    }),
+  );
+}
+
+/** Which transaction a worker's part goes to: the audit's (poll rows) or the analyses'. */
+type PartGroup = 'polls' | 'analyses';
+
 /** One slice of an audit given to a worker: its used rows, then its parts as they come. */
 class WorkerJob {
   readonly used: Promise<UsedRows & { total: number; notComputable: number }>;
+  /** Settles when the worker has sent every poll chunk of its slice. */
+  readonly pollsDone: Promise<void>;
   /** Settles when the worker has sent every part of the job (its slice's, and the scorecards if asked). */
   readonly done: Promise<void>;
   private readonly id = nextJob++;
   private readonly listening: { release: () => void };
-  private readonly received: PartRow[] = [];
-  private writer: PartWriter | null = null;
+  private readonly received: Record<PartGroup, PartRow[]> = { polls: [], analyses: [] };
+  private readonly writers: Record<PartGroup, PartWriter | null> = { polls: null, analyses: null };
 
   constructor(private readonly worker: AuditWorker, slice: AuditSlice, private readonly scorecards: boolean) {
-    let resolveUsed!: (v: UsedRows & { total: number; notComputable: number }) => void;
-    let resolveDone!: () => void;
-    let reject!: (err: Error) => void;
-    let failUsed!: (err: Error) => void;
-    this.used = new Promise((res, rej) => {
-      resolveUsed = res;
-      failUsed = rej;
-    });
-    this.done = new Promise((res, rej) => {
-      resolveDone = res;
-      reject = rej;
-    });
-    this.used.catch(() => undefined);
-    this.done.catch(() => undefined);
+    const settled = <T,>() => {
+      let resolve!: (v: T) => void;
+      let reject!: (err: Error) => void;
+      const promise = new Promise<T>((res, rej) => {
+        resolve = res;
+        reject = rej;
+      });
+      promise.catch(() => undefined);
+      return { promise, resolve, reject };
+    };
+    const used = settled<UsedRows & { total: number; notComputable: number }>();
+    const pollsDone = settled<void>();
+    const done = settled<void>();
+    this.used = used.promise;
+    this.pollsDone = pollsDone.promise;
+    this.done = done.promise;
     let sliceDone = false;
     let scorecardsDone = false;
     const settle = () => {
-      if (sliceDone && (!this.scorecards || scorecardsDone)) resolveDone();
+      if (sliceDone && (!this.scorecards || scorecardsDone)) done.resolve();
     };
     this.listening = worker.listen(this.id, (m: FromWorker) => {
-      if (m.type === 'used') resolveUsed({ used: m.used, total: m.total, notComputable: m.notComputable });
-      else if (m.type === 'part') this.receive({ ...m.part, payload: Buffer.from(m.part.payload.buffer, m.part.payload.byteOffset, m.part.payload.byteLength) });
+      if (m.type === 'used') used.resolve({ used: m.used, total: m.total, notComputable: m.notComputable });
+      else if (m.type === 'part') {
+        const part = { ...m.part, payload: Buffer.from(m.part.payload.buffer, m.part.payload.byteOffset, m.part.payload.byteLength) };
+        this.receive(part.kind === 'polls' ? 'polls' : 'analyses', part);
+      } else if (m.type === 'polls-done') pollsDone.resolve();
       else if (m.type === 'slice-done') {
         sliceDone = true;
         settle();
@@ -157,8 +206,9 @@ class WorkerJob {
       } else if (m.type === 'error') {
         const err = new Error(`audit worker: ${m.message}`);
         if (m.stack) err.stack = `${err.message}\n  worker stack: ${m.stack}`;
-        failUsed(err);
-        reject(err);
+        used.reject(err);
+        pollsDone.reject(err);
+        done.reject(err);
       }
     });
     worker.send({ type: 'slice', job: this.id, slice, electionKeys: slice.elections.map((e) => e.key) });
@@ -170,15 +220,16 @@ class WorkerJob {
     this.worker.send({ type: 'scorecards', job: this.id, settings, seed, others });
   }
 
-  /** Hands the parts received so far, and every later one, to `writer`. */
-  sendPartsTo(writer: PartWriter) {
-    this.writer = writer;
-    for (const part of this.received.splice(0)) writer.add(part, part.payload.length);
+  /** Hands the group's parts received so far, and every later one, to `writer`. */
+  sendPartsTo(group: PartGroup, writer: PartWriter) {
+    this.writers[group] = writer;
+    for (const part of this.received[group].splice(0)) writer.add(part, part.payload.length);
   }
 
-  private receive(part: PartRow) {
-    if (this.writer) this.writer.add(part, part.payload.length);
-    else this.received.push(part);
+  private receive(group: PartGroup, part: PartRow) {
+    const writer = this.writers[group];
+    if (writer) writer.add(part, part.payload.length);
+    else this.received[group].push(part);
   }
 
   release() {

@@ -58,7 +58,7 @@ function describe(part: { kind: AuditPartKind; partKey: string; chunk: number })
   return `Chunk ${part.chunk} of the poll rows of ${part.partKey}`;
 }
 
-async function insertRows(c: RawConnection, auditId: number, rows: readonly PartRow[]) {
+async function insertRows(c: RawConnection, auditId: number, rows: readonly PartRow[], keepExisting: boolean) {
   let start = 0;
   while (start < rows.length) {
     let end = start;
@@ -70,7 +70,7 @@ async function insertRows(c: RawConnection, auditId: number, rows: readonly Part
       throw new Error(`${describe(big)} is too large to store in one statement (${(big.payload.length / 1024 / 1024).toFixed(1)} MiB compressed; at most ${MAX_STATEMENT_BYTES / 1024 / 1024} MiB)`);
     }
     await c.query(
-      { sql: `INSERT INTO audit_parts (audit_id, kind, part_key, chunk, encoding, payload) VALUES ${batch.map(() => "(?, ?, ?, ?, 'gzip', ?)").join(', ')}` },
+      { sql: `INSERT ${keepExisting ? 'IGNORE ' : ''}INTO audit_parts (audit_id, kind, part_key, chunk, encoding, payload) VALUES ${batch.map(() => "(?, ?, ?, ?, 'gzip', ?)").join(', ')}` },
       batch.flatMap((r) => [auditId, r.kind, r.partKey, r.chunk, r.payload]),
     );
     start = end;
@@ -89,7 +89,8 @@ export class PartWriter {
   private failure: { error: unknown } | null = null;
   private finished = false;
 
-  constructor(private readonly c: RawConnection, private readonly auditId: number) {}
+  /** `keepExisting`: a part already stored is kept (INSERT IGNORE), for parts that anyone computes alike. */
+  constructor(private readonly c: RawConnection, private readonly auditId: number, private readonly options: { keepExisting?: boolean } = {}) {}
 
   get failed(): boolean {
     return this.failure !== null;
@@ -121,7 +122,7 @@ export class PartWriter {
     this.batch = [];
     this.expectedBytes = 0;
     this.chain = this.chain.then(async () => {
-      if (!this.failure) await insertRows(this.c, this.auditId, await Promise.all(rows));
+      if (!this.failure) await insertRows(this.c, this.auditId, await Promise.all(rows), this.options.keepExisting ?? false);
     });
     this.chain.catch((error: unknown) => (this.failure ??= { error }));
   }

@@ -1,6 +1,6 @@
 import type { AuditPollDto, AuditSettings } from '@veracast/shared-types';
 import type { ContestRow, ElectionRow, PollRow } from '../../queries/archive';
-import { computeAuditPolls, sharedErrorsFor, usedPolls } from './compute';
+import { computeAuditPolls, scorecardsFor, sharedErrorsFor, usedPolls } from './compute';
 import { encodePollChunk } from './stored-polls';
 import { POLLS_PER_CHUNK, type PartText } from './parts';
 
@@ -42,11 +42,8 @@ export function mergeUsed(parts: readonly { used: readonly AuditPollDto[] }[]): 
 
 const compare = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
 
-/**
- * The stored parts of a slice, each computed only when asked for: the poll rows of each of its
- * elections in chunks (contest key, then poll key), then each election's shared-error analysis.
- */
-export function* sliceParts(outcome: SliceOutcome, settings: AuditSettings, electionKeys: readonly string[]): Generator<PartText> {
+/** The poll rows of each of the slice's elections in stored chunks (contest key, then poll key), each built when asked for. */
+export function* pollChunkParts(outcome: SliceOutcome, electionKeys: readonly string[]): Generator<PartText> {
   const byElection = new Map<string, AuditPollDto[]>(electionKeys.map((k) => [k, []]));
   for (const i of outcome.items) byElection.get(i.electionKey)?.push(i);
   for (const [electionKey, polls] of byElection) {
@@ -55,10 +52,22 @@ export function* sliceParts(outcome: SliceOutcome, settings: AuditSettings, elec
       yield { kind: 'polls', partKey: electionKey, chunk, content: encodePollChunk(polls.slice(start, start + POLLS_PER_CHUNK)) };
     }
   }
+}
+
+/**
+ * The shared-error analysis of each of `electionKeys` as a stored part, each computed when asked
+ * for. `used` are the used polls of those elections (or more), in the audit's poll order.
+ */
+export function* sharedErrorParts(used: readonly AuditPollDto[], settings: AuditSettings, electionKeys: readonly string[]): Generator<PartText> {
   let n = 0;
-  for (const analysis of sharedErrorsFor(outcome.used, settings, electionKeys)) {
+  for (const analysis of sharedErrorsFor(used, settings, electionKeys)) {
     yield { kind: 'shared_error', partKey: electionKeys[n++]!, chunk: 0, content: JSON.stringify(analysis) };
   }
+}
+
+/** The scorecards as a stored part; `used` are every used poll of the audit, in the audit's poll order. */
+export function scorecardsPart(used: readonly AuditPollDto[], settings: AuditSettings, seed: number): PartText {
+  return { kind: 'scorecards', partKey: '', chunk: 0, content: JSON.stringify(scorecardsFor(used, settings, seed)) };
 }
 
 /**

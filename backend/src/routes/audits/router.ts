@@ -10,6 +10,8 @@ import { createAudit, loadAuditPolls } from '../../commands/audits/create-audit'
 import { loadAuditInputs } from '../../commands/audits/inputs';
 import { loadStoredScorecards, loadStoredSharedErrors } from '../../commands/audits/parts';
 import { scorecardsFor, seedOf, usedPolls } from '../../commands/audits/compute';
+import { ensureAnalyses } from '../../commands/audits/analyses';
+import { mergeUsed } from '../../commands/audits/slice';
 import { auditBreakdowns, auditHistory } from '../../commands/audits/breakdowns';
 import { loadContests, loadElections, orientationOf } from '../../queries/archive';
 import { auditPollsQuerySchema, scorecardQuerySchema, sharedErrorQuerySchema } from './schema';
@@ -31,6 +33,16 @@ export const AUDIT_POLL_COLUMNS = [
 export function auditsRouter(ctx: AppContext) {
   const router = Router();
   const s = ctx.sequelize;
+
+  /**
+   * The audit is answered as soon as it is committed; its analyses are stored right after (readers
+   * wait for them). A failure there is logged; a reader then computes them from the stored rows.
+   */
+  function logAnalyses(created: Awaited<ReturnType<typeof createAudit>>) {
+    void created.analyses.then((outcome) => {
+      if (!outcome.ok) ctx.logger.error({ err: outcome.error, auditId: created.id }, 'storing the analyses of an audit failed');
+    });
+  }
 
   async function findAudit(req: Request): Promise<AuditRow> {
     const rows = await s.query<AuditRow>(
@@ -62,6 +74,7 @@ export function auditsRouter(ctx: AppContext) {
     const body = parse(auditCreateSchema, req.body);
     const { name, ...settings } = body;
     const created = await createAudit(s, name, { name, ...settings }, currentUser(req).id);
+    logAnalyses(created);
     res.status(201).json(await present(await findAuditById(created.id), false));
   });
 
@@ -89,6 +102,7 @@ export function auditsRouter(ctx: AppContext) {
     const settings = JSON.parse(row.settings) as AuditSettings;
     const name = /\(re-run/.test(row.name) ? row.name : `${row.name} (re-run)`;
     const created = await createAudit(s, name, settings, currentUser(req).id, row.id);
+    logAnalyses(created);
     res.status(201).json(await present(await findAuditById(created.id), false));
   });
 
@@ -110,6 +124,7 @@ export function auditsRouter(ctx: AppContext) {
     const settings = JSON.parse(row.settings) as AuditSettings;
     const filtered = q.elections || q.kind || q.modes || q.populations || q.sponsorTypes || q.minPolls;
     let result: ReturnType<typeof scorecardsFor>;
+    if (!filtered) await ensureAnalyses(s, row.id);
     const stored = filtered ? null : await loadStoredScorecards(s, row.id);
     if (stored) result = JSON.parse(stored) as ReturnType<typeof scorecardsFor>;
     else {
@@ -122,7 +137,8 @@ export function auditsRouter(ctx: AppContext) {
       if (q.modes) items = items.filter((i) => q.modes!.includes(i.mode));
       if (q.populations) items = items.filter((i) => q.populations!.includes(i.population));
       if (q.sponsorTypes) items = items.filter((i) => q.sponsorTypes!.includes(i.sponsorType ?? 'none'));
-      result = scorecardsFor(items, { ...settings, minPolls: q.minPolls ?? settings.minPolls }, seedOf(row.data_hash));
+      // In the audit's poll order, as the stored scorecards were made (the bootstrap draws depend on it).
+      result = scorecardsFor(mergeUsed([{ used: items }]), { ...settings, minPolls: q.minPolls ?? settings.minPolls }, seedOf(row.data_hash));
     }
     if (wantsCsv(req)) {
       const rows = result.items.map((i) => ({ ...i, excessErrorInterval: i.excessErrorInterval?.join(' to '), rankInterval: i.rankInterval?.join(' to ') }));
@@ -134,6 +150,7 @@ export function auditsRouter(ctx: AppContext) {
   router.get('/:id/shared-error', requireRole('viewer'), async (req, res) => {
     const q = parse(sharedErrorQuerySchema, req.query, 'query');
     const row = await findAudit(req);
+    await ensureAnalyses(s, row.id);
     const stored = await loadStoredSharedErrors<{ contestsDetail: object[]; pairs: object[] }>(s, row.id, [q.election]);
     const analysis = stored[q.election];
     if (!analysis) throw notFound(`Election ${q.election} in this audit`);

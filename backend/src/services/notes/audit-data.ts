@@ -3,6 +3,7 @@ import type { AuditHeadline, AuditPollDto, AuditSettings } from '@veracast/share
 import { loadAuditPolls } from '../../commands/audits/create-audit';
 import { loadAuditInputs } from '../../commands/audits/inputs';
 import { loadStoredScorecards, loadStoredSharedErrors } from '../../commands/audits/parts';
+import { ensureAnalyses } from '../../commands/audits/analyses';
 import { loadElections } from '../../queries/archive';
 
 /** The scorecard fields a block shows (a subset of the stored scorecard item). */
@@ -62,6 +63,7 @@ export async function loadAuditSnapshots(
   for (const row of rows) {
     const settings = JSON.parse(row.settings) as AuditSettings;
     const elections = await loadElections(sequelize, { keys: settings.electionKeys });
+    await ensureAnalyses(sequelize, row.id);
     const scorecards = await loadStoredScorecards(sequelize, row.id);
     out.set(row.id, {
       id: row.id,
