@@ -245,10 +245,22 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
 
   const reservedOption = new Set<string>(RESERVED_OPTION_KEYS);
   const sampleSizeOk = memo((n: string) => /^[1-9]\d{0,8}$/.test(n));
+  // Checks of values that repeat across polls (codes, flags, margins) are remembered per value.
+  const lower = memo((v: string) => v.toLowerCase());
+  const bool = memo(parseBool);
+  const moeOf = memo((text: string) => {
+    const raw = text.replace(',', '.');
+    const moe = raw === '' ? null : Number(raw);
+    return { moe, ok: moe === null || (NUM_RE.test(raw) && moe > 0 && moe <= 50) };
+  });
+  const populationOk = memo((v: string) => (POPULATIONS as readonly string[]).includes(v));
+  const modeOk = memo((v: string) => (MODES as readonly string[]).includes(v));
+  const sponsorTypeOk = memo((v: string) => !v || (SPONSOR_TYPES as readonly string[]).includes(v));
   const clean: CleanPoll[] = [];
   for (const d of drafts.values()) {
     const i = d.firstIndex;
-    const f = (name: PollField) => cell(d.cells, colOf[name]);
+    const cells = d.cells;
+    const f = (name: PollField) => cell(cells, colOf[name]);
     const before = c.badRows.size;
     if (!KEY_RE.test(d.key)) c.add(i, 'poll_key', 'bad_key', `poll_key "${d.key}" must use lower-case letters, digits, dot, dash or underscore`);
     const pollster = f('pollster');
@@ -274,17 +286,16 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
     const n = f('sample_size');
     if (!sampleSizeOk(n)) c.add(i, 'sample_size', 'not_positive_integer', `sample_size "${n}" must be a positive whole number`);
     const populationRaw = f('population');
-    const population = populationRaw.toLowerCase();
-    if (!(POPULATIONS as readonly string[]).includes(population)) c.add(i, 'population', 'bad_population', `population "${populationRaw}" must be one of ${POPULATIONS.join(', ')}`);
+    const population = lower(populationRaw);
+    if (!populationOk(population)) c.add(i, 'population', 'bad_population', `population "${populationRaw}" must be one of ${POPULATIONS.join(', ')}`);
     const modeRaw = f('mode');
-    const mode = modeRaw.toLowerCase();
-    if (!(MODES as readonly string[]).includes(mode)) c.add(i, 'mode', 'bad_mode', `mode "${modeRaw}" must be one of ${MODES.join(', ')}`);
+    const mode = lower(modeRaw);
+    if (!modeOk(mode)) c.add(i, 'mode', 'bad_mode', `mode "${modeRaw}" must be one of ${MODES.join(', ')}`);
     const moeText = f('moe');
-    const moeRaw = moeText.replace(',', '.');
-    const moe = moeRaw === '' ? null : Number(moeRaw);
-    if (moe !== null && !(NUM_RE.test(moeRaw) && moe > 0 && moe <= 50)) c.add(i, 'moe', 'bad_moe', `moe "${moeText}" must be empty or a number of points above 0 and at most 50`);
-    const sponsorType = f('sponsor_type').toLowerCase();
-    if (sponsorType && !(SPONSOR_TYPES as readonly string[]).includes(sponsorType)) c.add(i, 'sponsor_type', 'bad_sponsor_type', `sponsor_type "${sponsorType}" must be one of ${SPONSOR_TYPES.join(', ')}`);
+    const { moe, ok: moeOk } = moeOf(moeText);
+    if (!moeOk) c.add(i, 'moe', 'bad_moe', `moe "${moeText}" must be empty or a number of points above 0 and at most 50`);
+    const sponsorType = lower(f('sponsor_type'));
+    if (!sponsorTypeOk(sponsorType)) c.add(i, 'sponsor_type', 'bad_sponsor_type', `sponsor_type "${sponsorType}" must be one of ${SPONSOR_TYPES.join(', ')}`);
     const sourceUrl = f('source_url');
     const tablesUrl = f('tables_url');
     if (sourceUrl && !isUrl(sourceUrl)) c.add(i, 'source_url', 'bad_url', `source_url "${sourceUrl}" must be an http(s) URL`);
@@ -292,7 +303,7 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
     const bools: Record<string, boolean> = {};
     for (const b of ['is_headline', 'tracking', 'question_wording', 'weighting_statement'] as const) {
       const raw = f(b);
-      const v = parseBool(raw);
+      const v = bool(raw);
       if (v === null) c.add(i, b, 'bad_boolean', `${b} "${raw}" must be yes/no, true/false or 1/0`);
       bools[b] = b === 'is_headline' ? (raw ? Boolean(v) : true) : Boolean(v);
     }
