@@ -1,6 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { QueryTypes } from 'sequelize';
+import * as mariadb from 'mariadb';
+import { QueryTypes, Sequelize } from 'sequelize';
+import { POLL_COLUMNS } from '@veracast/shared-types';
 import { createTestApp, type SignedInAgent, type TestApp } from '../helpers/test-app';
 import { buildPoll, buildResults, pollsCsv, resultsCsv, toCsv } from '../helpers/factories';
 import { importPolls } from '../../backend/src/commands/imports/polls';
@@ -184,5 +186,55 @@ describe('polls import', () => {
     const res = await analyst.get('/api/v1/imports').expect(200);
     expect(res.body.items.length).toBeGreaterThan(3);
     expect(res.body.items.some((i: { user: string; status: string }) => i.user === analyst.user.email && i.status === 'failed')).toBe(true);
+  });
+});
+
+describe('how new polls are written', () => {
+  const COLUMNS = ['pollster_id', 'sponsor_id', 'contest_id', 'fieldwork_start', 'fieldwork_end', 'published_on', 'sample_size', 'population', 'mode', 'moe',
+    'study_key', 'is_headline', 'tracking', 'source_url', 'question_wording', 'weighting_statement', 'tables_url'];
+  /** Two polls whose free texts hold what LOAD DATA's text format escapes (backslash, tab). */
+  const file = (prefix: string) => {
+    const extra = ['sponsor_type', 'study_key', 'source_url', 'tables_url', 'question_wording', 'weighting_statement', 'is_headline', 'tracking'];
+    const rows = [
+      ...buildPoll({ poll_key: `${prefix}-1`, sponsor_type: 'media', study_key: 'wave\\1\tlv', source_url: 'https://example.org/a\\b', tables_url: '', question_wording: 'yes', weighting_statement: 'no', is_headline: 'yes', tracking: 'no' }),
+      ...buildPoll({ poll_key: `${prefix}-2`, moe: '', sponsor: '', sponsor_type: '', study_key: '', source_url: '', tables_url: 'https://example.org/t?x=1', question_wording: 'no', weighting_statement: 'yes', is_headline: 'no', tracking: 'yes' }),
+    ];
+    return toCsv([...POLL_COLUMNS, ...extra], rows);
+  };
+  const stored = async (prefix: string) =>
+    t.ctx.sequelize.query<Record<string, unknown>>(
+      `SELECT ${COLUMNS.map((c) => `CAST(${c} AS CHAR) AS ${c}`).join(', ')} FROM polls WHERE \`key\` LIKE :p ORDER BY \`key\``,
+      { replacements: { p: `${prefix}-%` }, type: QueryTypes.SELECT },
+    );
+
+  it('through the bulk loader and, where loading local files is refused, through INSERT: the same rows', async () => {
+    const user = await t.createUser('analyst');
+    const loaded = await importPolls(t.ctx.sequelize, file('bulk'), { fileName: 'bulk.csv', userId: user.user.id, userRole: 'analyst' });
+    expect(loaded.status).toBe('committed');
+    // A connection that refuses LOAD DATA LOCAL: the import falls back to INSERT.
+    const { config } = t;
+    const refusing = new Sequelize(config.DB_NAME, config.DB_USER, config.DB_PASSWORD, {
+      dialect: 'mariadb', dialectModule: mariadb, host: config.DB_HOST, port: config.DB_PORT, timezone: '+00:00', logging: false,
+      dialectOptions: { permitLocalInfile: false },
+    });
+    try {
+      const inserted = await importPolls(refusing, file('text'), { fileName: 'text.csv', userId: user.user.id, userRole: 'analyst' });
+      expect(inserted.status).toBe('committed');
+    } finally {
+      await refusing.close();
+    }
+    const viaLoader = await stored('bulk');
+    expect(viaLoader).toHaveLength(2);
+    expect(viaLoader[0]!.study_key).toBe('wave\\1\tlv');
+    expect(viaLoader[0]!.source_url).toBe('https://example.org/a\\b');
+    expect(viaLoader[1]!.moe).toBeNull();
+    expect(viaLoader[1]!.sponsor_id).toBeNull();
+    expect(await stored('text')).toEqual(viaLoader);
+    const shares = async (prefix: string) => t.ctx.sequelize.query<{ option_key: string; share: string }>(
+      'SELECT s.option_key, CAST(s.share AS CHAR) AS share FROM poll_shares s JOIN polls p ON p.id = s.poll_id WHERE p.`key` LIKE :p ORDER BY p.`key`, s.option_key',
+      { replacements: { p: `${prefix}-%` }, type: QueryTypes.SELECT },
+    );
+    expect(await shares('text')).toEqual(await shares('bulk'));
+    expect((await shares('bulk')).length).toBe(8);
   });
 });

@@ -1,4 +1,7 @@
-import { createHash } from 'node:crypto';
+import { createHash, randomBytes } from 'node:crypto';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import {
   MODES, POLL_COLUMNS, POLL_EXTRA_COLUMNS, POLL_WIDE_FIXED_COLUMNS, POPULATIONS, RESERVED_OPTION_KEYS, SPONSOR_TYPES,
@@ -61,6 +64,12 @@ const POLL_FIELDS = [...POLL_WIDE_FIXED_COLUMNS.filter((c) => c !== 'poll_key'),
 type PollField = (typeof POLL_FIELDS)[number];
 const NUM_RE = /^\d+(\.\d+)?$/;
 const NO_CELLS: string[] = [];
+/** A value in LOAD DATA's default text format: backslash, tab, newline and CR escaped, NULL as \\N. */
+const tsvCell = (v: unknown): string => {
+  if (v === null || v === undefined) return '\\N';
+  const text = String(v);
+  return /[\\\t\n\r]/.test(text) ? text.replace(/[\\\t\n\r]/g, (ch) => (ch === '\\' ? '\\\\' : ch === '\t' ? '\\t' : ch === '\n' ? '\\n' : '\\r')) : text;
+};
 const round3 = (x: number) => Math.round(x * 1000) / 1000;
 const ER_DUP_ENTRY = 1062;
 
@@ -483,25 +492,85 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
       'SELECT @@innodb_autoinc_lock_mode AS mode, @@auto_increment_increment AS inc', { type: QueryTypes.SELECT, transaction },
     );
     const consecutiveIds = Number(autoinc?.mode) <= 1 && Number(autoinc?.inc) === 1;
+    let bulkLoad = true;
 
     /**
      * Inserts polls that did not exist and returns their ids. The ids come from the statement's
      * first insert id, after checking that the batch's first and last keys hold the two ends of
      * the id range; otherwise (and when a key was inserted meanwhile) they are read back by key.
      */
-    const insertNew = async (fresh: CleanPoll[], values: string): Promise<Map<string, number>> => {
-      let firstId: number;
-      try {
-        const [id] = await sequelize.query(insertPolls + values, { type: QueryTypes.INSERT, transaction });
-        firstId = Number(id);
-      } catch (err) {
-        if ((err as { parent?: { errno?: number } }).parent?.errno !== ER_DUP_ENTRY) throw err;
-        await sequelize.query(insertPolls + values + upsertTail, { transaction });
-        return selectIds(fresh.map((p) => p.key));
+    /** One poll as a line of LOAD DATA's default text format (tab-separated, \\N for NULL). */
+    const tsvLine = (p: CleanPoll) => {
+      const firm = firmByNorm.get(normalized(p.pollster));
+      const sponsorId = p.sponsor ? sponsorIds.get(p.sponsor) : undefined;
+      // Keys match KEY_RE, dates are checked YYYY-MM-DD, population and mode come from fixed lists:
+      // only the free texts need escaping.
+      return `${p.key}\t${firm ?? '\\N'}\t${sponsorId ?? '\\N'}\t${p.contestId}\t${p.fieldworkStart}\t${p.fieldworkEnd}\t${p.publishedOn}\t${
+        p.sampleSize}\t${p.population}\t${p.mode}\t${p.moe === null ? '\\N' : p.moe}\t${tsvCell(p.studyKey)}\t${p.isHeadline ? 1 : 0}\t${
+        p.tracking ? 1 : 0}\t${tsvCell(p.sourceUrl)}\t${p.questionWording ? 1 : 0}\t${p.weightingStatement ? 1 : 0}\t${tsvCell(p.tablesUrl)}\t${importId}`;
+    };
+
+    /**
+     * New polls through MariaDB's bulk loader (LOAD DATA LOCAL INFILE of a private temporary
+     * file, in this transaction): 'loaded', or null when the server or the connector does not
+     * allow it (the caller then sends an INSERT). When the loader skipped a row (a key inserted
+     * meanwhile by someone else, reported as a warning), every row is written again by the upsert:
+     * 'rewritten'.
+     */
+    const loadNew = async (fresh: CleanPoll[], lines: string): Promise<'loaded' | 'rewritten' | null> => {
+      if (!bulkLoad) return null;
+      const file = path.join(os.tmpdir(), `veracast-import-${randomBytes(12).toString('hex')}.tsv`);
+      // The connector sends only the file named, quoted, in the statement: a plain path is required.
+      if (!/^[\w/.-]+$/.test(file)) {
+        bulkLoad = false;
+        return null;
       }
-      if (consecutiveIds && Number.isSafeInteger(firstId) && firstId > 0) {
-        // Ids of one statement grow in row order, so n distinct ids whose first and last rows hold
-        // first and first + n - 1 are exactly that range.
+      try {
+        await fs.promises.writeFile(file, lines, { mode: 0o600, flag: 'wx' });
+        const result = (await withConnection(sequelize, transaction, (c) => c.query({
+          sql: `LOAD DATA LOCAL INFILE '${file}' INTO TABLE polls CHARACTER SET utf8mb4 FIELDS TERMINATED BY '\\t' ESCAPED BY '\\\\' LINES TERMINATED BY '\\n'
+                (\`key\`, pollster_id, sponsor_id, contest_id, fieldwork_start, fieldwork_end, published_on, sample_size, population, mode, moe,
+                 study_key, is_headline, tracking, source_url, question_wording, weighting_statement, tables_url, import_id)`,
+        }))) as { affectedRows?: number; warningStatus?: number };
+        if (Number(result.affectedRows) !== fresh.length || Number(result.warningStatus ?? 0) > 0) {
+          await sequelize.query(insertPolls + fresh.map(tuple).join(',') + upsertTail, { transaction });
+          return 'rewritten';
+        }
+        return 'loaded';
+      } catch (err) {
+        const errno = (err as { errno?: number }).errno;
+        // Loading local files refused by the server (1148, 4166) or the connector (45033, 45034): INSERT from now on.
+        if (errno === 1148 || errno === 4166 || errno === 45033 || errno === 45034) {
+          bulkLoad = false;
+          return null;
+        }
+        throw err;
+      } finally {
+        await fs.promises.rm(file, { force: true });
+      }
+    };
+
+    const insertNew = async (fresh: CleanPoll[], lines: string | null): Promise<Map<string, number>> => {
+      // The statement's first id: an INSERT reports it; after LOAD DATA (which reports none) it is
+      // read from the batch's first row below.
+      let firstId: number | null = null;
+      const loaded = lines === null ? null : await loadNew(fresh, lines);
+      if (loaded === 'rewritten') return selectIds(fresh.map((p) => p.key));
+      if (loaded !== 'loaded') {
+        const values = fresh.map(tuple).join(',');
+        try {
+          const [id] = await sequelize.query(insertPolls + values, { type: QueryTypes.INSERT, transaction });
+          firstId = Number(id);
+        } catch (err) {
+          if ((err as { parent?: { errno?: number } }).parent?.errno !== ER_DUP_ENTRY) throw err;
+          await sequelize.query(insertPolls + values + upsertTail, { transaction });
+          return selectIds(fresh.map((p) => p.key));
+        }
+      }
+      if (consecutiveIds) {
+        // Ids of one statement grow in row order (under these lock modes a LOAD DATA or a
+        // multi-row INSERT takes one run of ids), so n ids whose first and last rows hold first
+        // and first + n - 1 are exactly that range.
         const firstKey = fresh[0]!.key;
         const lastKey = fresh[fresh.length - 1]!.key;
         const ends = new Map(
@@ -509,8 +578,9 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
             replacements: { keys: [firstKey, lastKey] }, type: QueryTypes.SELECT, transaction,
           })).map((r) => [r.key, Number(r.id)]),
         );
-        if (ends.get(firstKey) === firstId && ends.get(lastKey) === firstId + fresh.length - 1) {
-          return new Map(fresh.map((p, j) => [p.key, firstId + j]));
+        const first = firstId ?? ends.get(firstKey);
+        if (first !== undefined && Number.isSafeInteger(first) && first > 0 && ends.get(firstKey) === first && ends.get(lastKey) === first + fresh.length - 1) {
+          return new Map(fresh.map((p, j) => [p.key, first + j]));
         }
       }
       return selectIds(fresh.map((p) => p.key));
@@ -520,7 +590,8 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
     const prepare = (part: CleanPoll[]) => {
       const fresh = part.filter((p) => !updatedIdOf.has(p));
       const changed = part.filter((p) => updatedIdOf.has(p));
-      return { part, fresh, changed, freshValues: fresh.map(tuple).join(','), changedValues: changed.map(tuple).join(',') };
+      // The new polls' lines for the bulk loader; their INSERT text only if the loader is refused.
+      return { part, fresh, changed, freshLines: bulkLoad ? `${fresh.map(tsvLine).join('\n')}\n` : null, changedValues: changed.map(tuple).join(',') };
     };
     /** Lets a statement just handed to the connector go out before a long synchronous step. */
     const yieldToIo = () => new Promise<void>((resolve) => setImmediate(resolve));
@@ -531,10 +602,10 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
     let next = parts.length ? prepare(parts[0]!) : null;
     let batch = 0;
     while (next) {
-      const { part, fresh, changed, freshValues, changedValues } = next;
+      const { part, fresh, changed, freshLines, changedValues } = next;
       const following = parts[batch + 1];
       next = null;
-      const ids = fresh.length ? await insertNew(fresh, freshValues) : new Map<string, number>();
+      const ids = fresh.length ? await insertNew(fresh, freshLines) : new Map<string, number>();
       if (changed.length) {
         await sequelize.query(insertPolls + changedValues + upsertTail, { transaction });
         for (const p of changed) ids.set(p.key, updatedIdOf.get(p)!);
