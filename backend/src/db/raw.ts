@@ -30,6 +30,9 @@ export async function withConnection<T>(sequelize: Sequelize, transaction: Trans
   }
 }
 
+/** Query options for rows as arrays with only the connector's own decoding (see {@link rawRows}). */
+const ROW_ARRAYS = { rowsAsArray: true, typeCast: undefined, dateStrings: true };
+
 /**
  * Rows as arrays, in select-list order, with the connector's own decoding only: DATE and DATETIME
  * as their text ('2024-05-01'), DECIMAL as text, integers as numbers, NULL as null. `?` takes the
@@ -37,7 +40,7 @@ export async function withConnection<T>(sequelize: Sequelize, transaction: Trans
  */
 export async function rawRows(sequelize: Sequelize, sql: string, values: unknown[] = [], transaction?: Transaction | null): Promise<unknown[][]> {
   return withConnection(sequelize, transaction, async (c) =>
-    (await c.query({ sql, rowsAsArray: true, typeCast: undefined, dateStrings: true }, values)) as unknown[][]);
+    (await c.query({ sql, ...ROW_ARRAYS }, values)) as unknown[][]);
 }
 
 /**
@@ -49,7 +52,7 @@ export async function withSnapshot<T>(sequelize: Sequelize, fn: (select: (sql: s
   return withConnection(sequelize, null, async (c) => {
     await c.query({ sql: 'START TRANSACTION WITH CONSISTENT SNAPSHOT, READ ONLY' });
     try {
-      return await fn(async (sql, values = []) => (await c.query({ sql, rowsAsArray: true, typeCast: undefined, dateStrings: true }, values)) as unknown[][]);
+      return await fn(async (sql, values = []) => (await c.query({ sql, ...ROW_ARRAYS }, values)) as unknown[][]);
     } finally {
       await c.query({ sql: 'COMMIT' });
     }

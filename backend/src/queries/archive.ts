@@ -64,7 +64,6 @@ export async function loadContests(s: Sequelize, where: { electionIds?: number[]
  * Sequelize's row mapping took ~3 s (an ORDER BY on the server costs more than the sort here).
  */
 export async function loadPolls(s: Sequelize, where: { contestIds?: number[]; pollsterId?: number; keys?: string[] }): Promise<PollRow[]> {
-  if ((where.contestIds && !where.contestIds.length) || (where.keys && !where.keys.length)) return [];
   let out: PollRow[] = [];
   await loadPollGroups(s, [where], (_, polls) => {
     out = polls;

@@ -6,7 +6,7 @@ import { withConnection } from '../../db/raw';
 import { headlineOfUsed, seedOf } from './compute';
 import { hashInputs } from './inputs';
 import { countPolls, loadContests, loadElections, loadPollGroups } from '../../queries/archive';
-import { loadStoredPolls, PartWriter, type PartRow, type PartText } from './parts';
+import { PartWriter, writeParts, type PartRow } from './parts';
 import { computeSlice, mergeUsed, pollChunkParts, scorecardsPart, sharedErrorParts, splitElections, type AuditSlice, type SliceOutcome } from './slice';
 import { trackAnalyses } from './analyses';
 import { readyAuditWorkers, type AuditWorker } from './workers';
@@ -124,15 +124,6 @@ export async function createAudit(
   }
 }
 
-/** Adds parts to the writer one at a time, letting compression, writes and worker messages proceed between them. */
-async function writeParts(writer: PartWriter, parts: Iterable<PartText>) {
-  for (const part of parts) {
-    if (writer.failed) break;
-    writer.addText(part);
-    await new Promise((resolve) => setImmediate(resolve));
-  }
-}
-
 /**
  * Stores the scorecards and each election's shared-error analysis: the main thread's elections'
  * here, the workers' from the workers (the first one also sends the scorecards), or all here when
@@ -238,6 +229,4 @@ class WorkerJob {
 }
 
 /** The audit's per-poll rows (of one election when `electionKey` is given), by election, contest and poll key. */
-export function loadAuditPolls(sequelize: Sequelize, auditId: number, electionKey?: string): Promise<AuditPollDto[]> {
-  return loadStoredPolls(sequelize, auditId, electionKey);
-}
+export { loadStoredPolls as loadAuditPolls } from './parts';

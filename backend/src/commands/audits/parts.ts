@@ -11,14 +11,15 @@ import { decodeAuditPoll, decodePollChunk } from './stored-polls';
  * - 'polls': the per-poll rows, part key = election key, chunks 0, 1, … of POLLS_PER_CHUNK rows;
  * - 'scorecards': part key '', chunk 0;
  * - 'shared_error': part key = election key, chunk 0.
- * Payloads are JSON text, stored gzip-compressed (`encoding` 'gzip') by audits from this version
- * on; parts written before are plain JSON ('json'). Audits stored before audit_parts kept their
+ * Payloads are stored gzip-compressed (`encoding` 'gzip'): poll chunks as binary blocks
+ * (stored-polls.ts), the others as JSON text; parts written before migration 0600 are plain JSON
+ * ('json'). Audits stored before audit_parts kept their
  * analyses in `audits.scorecards` / `audits.shared_error` and their poll rows in `audit_polls`;
  * the readers here fall back to those.
  */
 export type AuditPartKind = 'polls' | 'scorecards' | 'shared_error';
 
-/** Poll rows per stored chunk (~0.9 MB of JSON, ~0.15 MB compressed). */
+/** Poll rows per stored chunk (~0.35 MB as a binary block, ~0.15 MB compressed). */
 export const POLLS_PER_CHUNK = 2000;
 
 /**
@@ -110,7 +111,7 @@ export class PartWriter {
     if (this.expectedBytes >= BATCH_BYTES) this.flush();
   }
 
-  /** Adds a part as JSON text, compressed on the thread pool. */
+  /** Adds a part before compression (JSON text or a binary block), compressed on the thread pool. */
   addText(part: PartText) {
     // ~5:1 compression: the expected stored bytes.
     this.add(compressPart(part), (typeof part.content === 'string' ? part.content.length : part.content.byteLength) / 5);
@@ -136,18 +137,16 @@ export class PartWriter {
 }
 
 /**
- * Stores the parts on `c`, compressing each on the thread pool as soon as it is produced.
- * `parts` is read lazily: between two parts the event loop turns, so the compression and the
- * server's writes proceed while the next part is computed.
+ * Adds parts to the writer one at a time, compressing each on the thread pool as soon as it is
+ * produced. `parts` is read lazily: between two parts the event loop turns, so the compression,
+ * the server's writes and other messages (a worker's parts) proceed while the next is computed.
  */
-export async function storeParts(c: RawConnection, auditId: number, parts: Iterable<PartText>): Promise<void> {
-  const writer = new PartWriter(c, auditId);
+export async function writeParts(writer: PartWriter, parts: Iterable<PartText>): Promise<void> {
   for (const part of parts) {
     if (writer.failed) break;
     writer.addText(part);
     await new Promise((resolve) => setImmediate(resolve));
   }
-  await writer.finish();
 }
 
 /** The bytes of a stored payload, uncompressed. */
