@@ -527,6 +527,12 @@ export async function importPolls(sequelize: Sequelize, buffer: Buffer, opts: Po
       }
       try {
         await fs.promises.writeFile(file, lines, { mode: 0o600, flag: 'wx' });
+      } catch {
+        // No temporary file (a full or read-only disk): INSERT from now on.
+        bulkLoad = false;
+        return null;
+      }
+      try {
         const result = (await withConnection(sequelize, transaction, (c) => c.query({
           sql: `LOAD DATA LOCAL INFILE '${file}' INTO TABLE polls CHARACTER SET utf8mb4 FIELDS TERMINATED BY '\\t' ESCAPED BY '\\\\' LINES TERMINATED BY '\\n'
                 (\`key\`, pollster_id, sponsor_id, contest_id, fieldwork_start, fieldwork_end, published_on, sample_size, population, mode, moe,
