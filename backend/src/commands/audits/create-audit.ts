@@ -40,7 +40,9 @@ let nextJob = 1;
  * are (it never rejects), and readers wait for them through `ensureAnalyses`.
  *
  * Work: the elections are split into slices; the main thread computes one and each audit worker
- * (workers.ts) another at the same time, the first worker then the scorecards. Results do not
+ * (workers.ts) another at the same time. Once the audit is committed, and not before (they would
+ * take CPU from storing it), each thread makes its elections' shared-error analyses and the first
+ * worker the scorecards. Results do not
  * depend on the split: slices are whole elections and the used polls are merged back in the
  * audit's poll order before the headline and the scorecards.
  *
@@ -85,7 +87,6 @@ export async function createAudit(
     }
     const allUsed = mergeUsed(usedRows);
     const summary = JSON.stringify({ headline: headlineOfUsed(allUsed, counts, elections, contests) });
-    jobs[0]?.requestScorecards(settings, seed, usedRows.filter((_, k) => k !== 1));
 
     // The audit: its row and every poll row, in one transaction.
     const created = await sequelize.transaction(async (transaction) => {
@@ -112,7 +113,8 @@ export async function createAudit(
     // Its analyses (views of the rows just stored), in a transaction of their own right after.
     const releasing = jobs;
     jobs = [];
-    const analyses = storeAnalyses(sequelize, created.id, releasing, mine, allUsed, settings, seed, slices[0]!.elections.map((e) => e.key))
+    const forScorecards = usedRows.filter((_, k) => k !== 1);
+    const analyses = storeAnalyses(sequelize, created.id, releasing, mine, allUsed, forScorecards, settings, seed, slices[0]!.elections.map((e) => e.key))
       .then(() => ({ ok: true as const }), (error: unknown) => ({ ok: false as const, error }))
       .finally(() => {
         for (const job of releasing) job.release();
@@ -126,13 +128,14 @@ export async function createAudit(
 
 /**
  * Stores the scorecards and each election's shared-error analysis: the main thread's elections'
- * here, the workers' from the workers (the first one also sends the scorecards), or all here when
- * there is no worker.
+ * here, the workers' from the workers (the first one also makes the scorecards, over its used
+ * rows and `others`), or all here when there is no worker.
  */
 async function storeAnalyses(
-  sequelize: Sequelize, auditId: number, jobs: readonly WorkerJob[], mine: SliceOutcome, allUsed: readonly AuditPollDto[], settings: AuditSettings, seed: number,
-  myElections: readonly string[],
+  sequelize: Sequelize, auditId: number, jobs: readonly WorkerJob[], mine: SliceOutcome, allUsed: readonly AuditPollDto[], others: UsedRows[],
+  settings: AuditSettings, seed: number, myElections: readonly string[],
 ) {
+  jobs.forEach((job, k) => job.requestAnalyses(k === 0 ? { seed, others } : null));
   await sequelize.transaction((transaction) =>
     withConnection(sequelize, transaction, async (c) => {
       const writer = new PartWriter(c, auditId);
@@ -153,7 +156,7 @@ class WorkerJob {
   readonly used: Promise<UsedRows & { total: number; notComputable: number }>;
   /** Settles when the worker has sent every poll chunk of its slice. */
   readonly pollsDone: Promise<void>;
-  /** Settles when the worker has sent every part of the job (its slice's, and the scorecards if asked). */
+  /** Settles when the worker has sent every part of the job (its slice's, its analyses and the scorecards if asked). */
   readonly done: Promise<void>;
   private readonly id = nextJob++;
   private readonly listening: { release: () => void };
@@ -177,24 +180,14 @@ class WorkerJob {
     this.used = used.promise;
     this.pollsDone = pollsDone.promise;
     this.done = done.promise;
-    let sliceDone = false;
-    let scorecardsDone = false;
-    const settle = () => {
-      if (sliceDone && (!this.scorecards || scorecardsDone)) done.resolve();
-    };
     this.listening = worker.listen(this.id, (m: FromWorker) => {
       if (m.type === 'used') used.resolve({ used: m.used, total: m.total, notComputable: m.notComputable });
       else if (m.type === 'part') {
         const part = { ...m.part, payload: Buffer.from(m.part.payload.buffer, m.part.payload.byteOffset, m.part.payload.byteLength) };
         this.receive(part.kind === 'polls' ? 'polls' : 'analyses', part);
       } else if (m.type === 'polls-done') pollsDone.resolve();
-      else if (m.type === 'slice-done') {
-        sliceDone = true;
-        settle();
-      } else if (m.type === 'scorecards-done') {
-        scorecardsDone = true;
-        settle();
-      } else if (m.type === 'error') {
+      else if (m.type === 'analyses-done') done.resolve();
+      else if (m.type === 'error') {
         const err = new Error(`audit worker: ${m.message}`);
         if (m.stack) err.stack = `${err.message}\n  worker stack: ${m.stack}`;
         used.reject(err);
@@ -205,10 +198,13 @@ class WorkerJob {
     worker.send({ type: 'slice', job: this.id, slice, electionKeys: slice.elections.map((e) => e.key) });
   }
 
-  /** Asks the worker for the scorecards over its used rows and `others` (every other slice's). */
-  requestScorecards(settings: AuditSettings, seed: number, others: UsedRows[]) {
-    if (!this.scorecards) throw new Error('this audit job was not set up to make the scorecards');
-    this.worker.send({ type: 'scorecards', job: this.id, settings, seed, others });
+  /**
+   * Asks the worker for its elections' shared-error analyses, and for the scorecards over its used
+   * rows and `scorecards.others` (every other slice's) when given; sent once the audit is committed.
+   */
+  requestAnalyses(scorecards: { seed: number; others: UsedRows[] } | null) {
+    if (scorecards && !this.scorecards) throw new Error('this audit job was not set up to make the scorecards');
+    this.worker.send({ type: 'analyses', job: this.id, scorecards });
   }
 
   /** Hands the group's parts received so far, and every later one, to `writer`. */
