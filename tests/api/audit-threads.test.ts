@@ -1,6 +1,7 @@
 /**
  * Audits split over worker threads (commands/audits/workers.ts) store exactly what the main thread
- * alone stores, and a worker that dies makes the audit fail with nothing written.
+ * alone stores, read one committed state across their connections, and a worker that dies makes
+ * the audit fail with nothing written.
  */
 import { gunzipSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -8,6 +9,7 @@ import { QueryTypes } from 'sequelize';
 import { auditCreateSchema, type AuditSettings } from '@veracast/shared-types';
 import { createAudit } from '../../backend/src/commands/audits/create-audit';
 import { ensureAnalyses } from '../../backend/src/commands/audits/analyses';
+import { loadAuditInputs } from '../../backend/src/commands/audits/inputs';
 import { AuditWorker, configureAuditWorkers, readyAuditWorkers, stopAuditWorkers } from '../../backend/src/commands/audits/workers';
 import { loadDemo } from '../../backend/src/commands/load-demo';
 import { createTestApp, type TestApp } from '../helpers/test-app';
@@ -56,6 +58,49 @@ describe('audits over worker threads', () => {
       expect(await split.analyses).toEqual({ ok: true });
       expect(await stored(split.id)).toEqual(expected);
     }
+    // The hash the threads made apart is the one the out-of-date check makes from the whole.
+    expect(expected.audit!.data_hash).toBe((await loadAuditInputs(t.ctx.sequelize, settings.electionKeys)).dataHash);
+  });
+
+  it('read one committed state: a write under way when the audit starts is waited for, then read by every thread', async () => {
+    configureAuditWorkers(1);
+    const q = t.ctx.sequelize;
+    const before = await createAudit(q, 'before the write', settings, null, null, { parallel: true });
+    expect(before.threads).toBe(2);
+    await before.analyses;
+    // A writer adds a poll (in the last election by key) and has not committed when the audit starts.
+    const writer = await q.transaction();
+    await q.query(
+      `INSERT INTO polls (\`key\`, pollster_id, contest_id, fieldwork_start, fieldwork_end, published_on, sample_size, population, mode)
+       SELECT CONCAT(p.\`key\`, '-late'), p.pollster_id, p.contest_id, p.fieldwork_start, p.fieldwork_end, p.published_on, p.sample_size, p.population, p.mode
+       FROM polls p JOIN contests k ON k.id = p.contest_id JOIN elections e ON e.id = k.election_id WHERE e.\`key\` = ? ORDER BY p.id LIMIT 1`,
+      { replacements: [settings.electionKeys.at(-1)], transaction: writer },
+    );
+    let settled = false;
+    const during = createAudit(q, 'during the write', settings, null, null, { parallel: true }).finally(() => (settled = true));
+    await new Promise((resolve) => setTimeout(resolve, 400));
+    // The audit waits for the writer instead of reading around it.
+    expect(settled).toBe(false);
+    await writer.commit();
+    const audit = await during;
+    expect(audit.threads).toBe(2);
+    expect(audit.pollCount).toBe(before.pollCount + 1);
+    expect(audit.dataHash).toBe((await loadAuditInputs(q, settings.electionKeys)).dataHash);
+    expect(audit.dataHash).not.toBe(before.dataHash);
+    await audit.analyses;
+    await q.query("DELETE FROM polls WHERE `key` LIKE '%-late'");
+  });
+
+  it('leave a worker busy with another audit alone: the second audit runs without it, the same', async () => {
+    configureAuditWorkers(1);
+    const q = t.ctx.sequelize;
+    const first = createAudit(q, 'first', settings, null, null, { parallel: true });
+    const second = createAudit(q, 'second', settings, null, null, { parallel: true });
+    const [a, b] = await Promise.all([first, second]);
+    expect([a.threads, b.threads].sort()).toEqual([1, 2]);
+    await Promise.all([a.analyses, b.analyses]);
+    expect((await stored(b.id)).parts).toEqual((await stored(a.id)).parts);
+    expect(a.dataHash).toBe(b.dataHash);
   });
 
   it('readers wait for the analyses that follow an audit, and recompute the same ones when they are missing', async () => {

@@ -4,6 +4,7 @@ import request from 'supertest';
 import { QueryTypes } from 'sequelize';
 import { decodePollChunk } from '../../backend/src/commands/audits/stored-polls';
 import { ensureAnalyses } from '../../backend/src/commands/audits/analyses';
+import { HASH_SCHEME, loadAuditInputs } from '../../backend/src/commands/audits/inputs';
 import { createTestApp, type SignedInAgent, type TestApp } from '../helpers/test-app';
 import { buildPoll, buildResultRow, pollsCsv, resultsCsv } from '../helpers/factories';
 
@@ -152,6 +153,27 @@ describe('frozen audits', () => {
   });
 });
 
+describe('data hash schemes', () => {
+  it('an audit is checked against the hash scheme it was stored with; earlier audits keep scheme 1', async () => {
+    const a = await audit('raw');
+    const q = t.ctx.sequelize;
+    const [row] = await q.query<{ hash_scheme: number }>('SELECT hash_scheme FROM audits WHERE id = ?', { replacements: [a.id], type: QueryTypes.SELECT });
+    expect(row!.hash_scheme).toBe(HASH_SCHEME);
+    const v1 = (await loadAuditInputs(q, [E], 1)).dataHash;
+    expect(v1).not.toBe(a.dataHash);
+    // Copies of the audit as stored before schemes existed (scheme 1, its hash), and a mismatched one.
+    const copy = async (hash: string, scheme: number) => {
+      await q.query(`INSERT INTO audits (name, settings, data_hash, hash_scheme, core_version, poll_count, summary, created_by_id)
+        SELECT 'scheme copy', settings, ?, ?, core_version, poll_count, summary, created_by_id FROM audits WHERE id = ?`, { replacements: [hash, scheme, a.id] });
+      const [last] = await q.query<{ id: number }>('SELECT MAX(id) AS id FROM audits', { type: QueryTypes.SELECT });
+      return (await viewer.get(`/api/v1/audits/${last!.id}`).expect(200)).body as { outOfDate: boolean; currentHash: string };
+    };
+    expect(await copy(v1, 1)).toMatchObject({ outOfDate: false, currentHash: v1 });
+    expect(await copy(v1, 2)).toMatchObject({ outOfDate: true, currentHash: a.dataHash });
+    expect(await copy(a.dataHash, 1)).toMatchObject({ outOfDate: true, currentHash: v1 });
+  });
+});
+
 describe('storage', () => {
   const rows = async (sql: string) => (await t.ctx.sequelize.query(sql, { type: QueryTypes.SELECT })) as Record<string, unknown>[];
 
@@ -182,8 +204,8 @@ describe('storage', () => {
     const scorecards = (await viewer.get(`/api/v1/audits/${a.id}/scorecards`).expect(200)).body;
     const q = t.ctx.sequelize;
     // A copy of the audit as the earlier versions stored it: one audit_polls row per poll.
-    await q.query(`INSERT INTO audits (name, settings, data_hash, core_version, poll_count, summary, scorecards, shared_error, created_by_id)
-      SELECT 'earlier form', settings, data_hash, core_version, poll_count, summary, NULL, NULL, created_by_id FROM audits WHERE id = ${a.id}`);
+    await q.query(`INSERT INTO audits (name, settings, data_hash, hash_scheme, core_version, poll_count, summary, scorecards, shared_error, created_by_id)
+      SELECT 'earlier form', settings, data_hash, hash_scheme, core_version, poll_count, summary, NULL, NULL, created_by_id FROM audits WHERE id = ${a.id}`);
     const [{ id }] = (await rows('SELECT MAX(id) AS id FROM audits')) as [{ id: number }];
     const fields = Object.keys(items[0]!);
     for (const [n, item] of items.entries()) {

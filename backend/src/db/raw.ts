@@ -33,28 +33,54 @@ export async function withConnection<T>(sequelize: Sequelize, transaction: Trans
 /** Query options for rows as arrays with only the connector's own decoding (see {@link rawRows}). */
 const ROW_ARRAYS = { rowsAsArray: true, typeCast: undefined, dateStrings: true };
 
+/** A SELECT returning rows as {@link rawRows} does; `?` takes the values in order. */
+export type SelectRows = (sql: string, values?: unknown[]) => Promise<unknown[][]>;
+
+/** {@link SelectRows} on one connection of the mariadb connector (Sequelize's or a pool's of its own). */
+export const selectOn = (c: Pick<RawConnection, 'query'>): SelectRows => async (sql, values = []) => (await c.query({ sql, ...ROW_ARRAYS }, values)) as unknown[][];
+
 /**
  * Rows as arrays, in select-list order, with the connector's own decoding only: DATE and DATETIME
  * as their text ('2024-05-01'), DECIMAL as text, integers as numbers, NULL as null. `?` takes the
  * values in order (an array becomes a list, for `IN (?)`).
  */
 export async function rawRows(sequelize: Sequelize, sql: string, values: unknown[] = [], transaction?: Transaction | null): Promise<unknown[][]> {
-  return withConnection(sequelize, transaction, async (c) =>
-    (await c.query({ sql, ...ROW_ARRAYS }, values)) as unknown[][]);
+  return withConnection(sequelize, transaction, (c) => selectOn(c)(sql, values));
 }
+
+/** Starts a read-only transaction whose consistent snapshot is taken at once (not at its first read). */
+export const START_SNAPSHOT = 'START TRANSACTION WITH CONSISTENT SNAPSHOT, READ ONLY';
 
 /**
  * Runs `fn` in one read-only transaction on one connection, so that every SELECT it makes with
  * `select` (rows as {@link rawRows} returns them) sees the same committed state (InnoDB's
  * consistent snapshot).
  */
-export async function withSnapshot<T>(sequelize: Sequelize, fn: (select: (sql: string, values?: unknown[]) => Promise<unknown[][]>) => Promise<T>): Promise<T> {
+export async function withSnapshot<T>(sequelize: Sequelize, fn: (select: SelectRows) => Promise<T>): Promise<T> {
   return withConnection(sequelize, null, async (c) => {
-    await c.query({ sql: 'START TRANSACTION WITH CONSISTENT SNAPSHOT, READ ONLY' });
+    await c.query({ sql: START_SNAPSHOT });
     try {
-      return await fn(async (sql, values = []) => (await c.query({ sql, ...ROW_ARRAYS }, values)) as unknown[][]);
+      return await fn(selectOn(c));
     } finally {
       await c.query({ sql: 'COMMIT' });
+    }
+  });
+}
+
+/**
+ * Runs `fn` while a connection of its own holds READ locks on `tables`: no one can write to them
+ * meanwhile (writers wait; a writer already in a transaction on them is waited for before the
+ * locks are granted), everyone can read. Snapshots started inside `fn`, on any connection, thus
+ * see one and the same committed state of those tables. Keep `fn` short: writers wait for it.
+ * Needs the LOCK TABLES privilege (part of ALL PRIVILEGES on the database).
+ */
+export async function whileTablesLocked<T>(sequelize: Sequelize, tables: readonly string[], fn: () => Promise<T>): Promise<T> {
+  return withConnection(sequelize, null, async (c) => {
+    await c.query({ sql: `LOCK TABLES ${tables.map((t) => `\`${t}\` READ`).join(', ')}` });
+    try {
+      return await fn();
+    } finally {
+      await c.query({ sql: 'UNLOCK TABLES' });
     }
   });
 }

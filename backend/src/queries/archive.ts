@@ -1,7 +1,7 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { ContestKind, Mode, Population, ResultStatus, SponsorType } from '@veracast/shared-types';
 import { DISCLOSURE_ITEMS, type DisclosureDto } from '@veracast/shared-types';
-import { rawRows, withSnapshot } from '../db/raw';
+import { rawRows, withSnapshot, type SelectRows } from '../db/raw';
 
 /** Set-based loaders of the archive (elections, contests with options, polls with shares). */
 
@@ -24,10 +24,11 @@ export interface PollRow {
 const day = (v: unknown) => (v == null ? null : String(v).slice(0, 10));
 const num = (v: unknown) => (v == null ? null : Number(v));
 
-export async function loadElections(s: Sequelize, where: { keys?: string[]; ids?: number[] } = {}): Promise<ElectionRow[]> {
+/** Elections (newest first); in `transaction` when given (so that they belong to its snapshot). */
+export async function loadElections(s: Sequelize, where: { keys?: string[]; ids?: number[] } = {}, transaction?: Transaction): Promise<ElectionRow[]> {
   const cond = where.keys ? 'WHERE `key` IN (:keys)' : where.ids ? 'WHERE id IN (:ids)' : '';
   if ((where.keys && !where.keys.length) || (where.ids && !where.ids.length)) return [];
-  const rows = await s.query<Record<string, unknown>>(`SELECT * FROM elections ${cond} ORDER BY election_date DESC, \`key\``, { replacements: where, type: QueryTypes.SELECT });
+  const rows = await s.query<Record<string, unknown>>(`SELECT * FROM elections ${cond} ORDER BY election_date DESC, \`key\``, { replacements: where, type: QueryTypes.SELECT, transaction });
   return rows.map((r) => ({
     id: Number(r.id), key: String(r.key), name: String(r.name), date: day(r.election_date)!, jurisdiction: String(r.jurisdiction),
     blocA: (r.bloc_a as string | null) ?? null, blocB: (r.bloc_b as string | null) ?? null, blackoutStart: day(r.blackout_start), blackoutEnd: day(r.blackout_end),
@@ -35,12 +36,13 @@ export async function loadElections(s: Sequelize, where: { keys?: string[]; ids?
   }));
 }
 
-export async function loadContests(s: Sequelize, where: { electionIds?: number[]; keys?: string[]; ids?: number[] }): Promise<ContestRow[]> {
+/** Contests with their options (most votes first); in `transaction` when given. */
+export async function loadContests(s: Sequelize, where: { electionIds?: number[]; keys?: string[]; ids?: number[] }, transaction?: Transaction): Promise<ContestRow[]> {
   const [col, vals] = where.electionIds ? ['election_id', where.electionIds] : where.keys ? ['`key`', where.keys] : ['id', where.ids ?? []];
   if (!vals.length) return [];
   const rows = await s.query<Record<string, unknown>>(
     `SELECT id, \`key\`, name, kind, election_id, result_status, certified_on, certifying_body, source_url, rejected_ballots, electorate FROM contests WHERE ${col} IN (:vals) ORDER BY \`key\``,
-    { replacements: { vals }, type: QueryTypes.SELECT },
+    { replacements: { vals }, type: QueryTypes.SELECT, transaction },
   );
   const contests: ContestRow[] = rows.map((r) => ({
     id: Number(r.id), key: String(r.key), name: String(r.name), kind: r.kind as ContestKind, electionId: Number(r.election_id),
@@ -50,11 +52,18 @@ export async function loadContests(s: Sequelize, where: { electionIds?: number[]
   const byId = new Map(contests.map((c) => [c.id, c]));
   if (contests.length) {
     const opts = await s.query<Record<string, unknown>>('SELECT contest_id, `key`, name, bloc, votes FROM options WHERE contest_id IN (:ids) ORDER BY votes DESC, `key`', {
-      replacements: { ids: contests.map((c) => c.id) }, type: QueryTypes.SELECT,
+      replacements: { ids: contests.map((c) => c.id) }, type: QueryTypes.SELECT, transaction,
     });
     for (const o of opts) byId.get(Number(o.contest_id))?.options.push({ key: String(o.key), name: String(o.name), bloc: (o.bloc as string | null) || null, votes: num(o.votes) });
   }
   return contests;
+}
+
+/** Which polls to read: of these contests, of this firm, with these keys (all given conditions hold). */
+export interface PollFilter {
+  contestIds?: number[];
+  pollsterId?: number;
+  keys?: string[];
 }
 
 /**
@@ -63,57 +72,41 @@ export async function loadContests(s: Sequelize, where: { electionIds?: number[]
  * connection, sorted here rather than by the server: at 100,000 polls this takes ~0.8 s where
  * Sequelize's row mapping took ~3 s (an ORDER BY on the server costs more than the sort here).
  */
-export async function loadPolls(s: Sequelize, where: { contestIds?: number[]; pollsterId?: number; keys?: string[] }): Promise<PollRow[]> {
-  let out: PollRow[] = [];
-  await loadPollGroups(s, [where], (_, polls) => {
-    out = polls;
-  });
-  return out;
+export async function loadPolls(s: Sequelize, where: PollFilter): Promise<PollRow[]> {
+  return withSnapshot(s, (select) => readPolls(select, where));
 }
 
 /**
- * Several sets of polls (as {@link loadPolls} reads each) read one after another in one read-only
- * snapshot, so that together they are one consistent state; `onGroup` gets each set as soon as it
- * is read, before the next is.
+ * Polls as {@link loadPolls} returns them, read with `select` (rows as arrays, see `rawRows`):
+ * both statements see the same state when `select` runs in one snapshot. Used on any connection
+ * of the mariadb connector, in the audit worker threads too.
  */
-export async function loadPollGroups(
-  s: Sequelize,
-  groups: readonly { contestIds?: number[]; pollsterId?: number; keys?: string[] }[],
-  onGroup: (index: number, polls: PollRow[]) => void,
-): Promise<void> {
-  await withSnapshot(s, async (select) => {
-    for (let g = 0; g < groups.length; g++) {
-      const where = groups[g]!;
-      if ((where.contestIds && !where.contestIds.length) || (where.keys && !where.keys.length)) {
-        onGroup(g, []);
-        continue;
-      }
-      const conds: string[] = [];
-      const values: unknown[] = [];
-      if (where.contestIds) {
-        conds.push('p.contest_id IN (?)');
-        values.push(where.contestIds);
-      }
-      if (where.pollsterId !== undefined) {
-        conds.push('p.pollster_id = ?');
-        values.push(where.pollsterId);
-      }
-      if (where.keys) {
-        conds.push('p.`key` IN (?)');
-        values.push(where.keys);
-      }
-      const filter = conds.length ? `WHERE ${conds.join(' AND ')}` : '';
-      const rows = await select(
-        `SELECT p.id, p.\`key\`, p.pollster_id, p.contest_id, p.fieldwork_start, p.fieldwork_end, p.published_on, p.sample_size, p.population, p.mode, p.moe,
-           p.study_key, p.is_headline, p.tracking, p.source_url, p.question_wording, p.weighting_statement, p.tables_url,
-           f.name AS pollster_name, sp.name AS sponsor_name, sp.type AS sponsor_type
-         FROM polls p JOIN pollsters f ON f.id = p.pollster_id LEFT JOIN sponsors sp ON sp.id = p.sponsor_id ${filter}`,
-        values,
-      );
-      const shareRows = await select(`SELECT x.poll_id, x.option_key, x.share FROM poll_shares x JOIN polls p ON p.id = x.poll_id ${filter}`, values);
-      onGroup(g, pollRows(rows, shareRows));
-    }
-  });
+export async function readPolls(select: SelectRows, where: PollFilter): Promise<PollRow[]> {
+  if ((where.contestIds && !where.contestIds.length) || (where.keys && !where.keys.length)) return [];
+  const conds: string[] = [];
+  const values: unknown[] = [];
+  if (where.contestIds) {
+    conds.push('p.contest_id IN (?)');
+    values.push(where.contestIds);
+  }
+  if (where.pollsterId !== undefined) {
+    conds.push('p.pollster_id = ?');
+    values.push(where.pollsterId);
+  }
+  if (where.keys) {
+    conds.push('p.`key` IN (?)');
+    values.push(where.keys);
+  }
+  const filter = conds.length ? `WHERE ${conds.join(' AND ')}` : '';
+  const rows = await select(
+    `SELECT p.id, p.\`key\`, p.pollster_id, p.contest_id, p.fieldwork_start, p.fieldwork_end, p.published_on, p.sample_size, p.population, p.mode, p.moe,
+       p.study_key, p.is_headline, p.tracking, p.source_url, p.question_wording, p.weighting_statement, p.tables_url,
+       f.name AS pollster_name, sp.name AS sponsor_name, sp.type AS sponsor_type
+     FROM polls p JOIN pollsters f ON f.id = p.pollster_id LEFT JOIN sponsors sp ON sp.id = p.sponsor_id ${filter}`,
+    values,
+  );
+  const shareRows = await select(`SELECT x.poll_id, x.option_key, x.share FROM poll_shares x JOIN polls p ON p.id = x.poll_id ${filter}`, values);
+  return pollRows(rows, shareRows);
 }
 
 function pollRows(rows: unknown[][], shareRows: unknown[][]): PollRow[] {
@@ -153,10 +146,17 @@ function pollRows(rows: unknown[][], shareRows: unknown[][]): PollRow[] {
   return polls.sort(byFieldworkEndThenKey);
 }
 
+/** How many polls the elections hold, in all. */
+export async function countElectionPolls(s: Sequelize, electionIds: readonly number[]): Promise<number> {
+  if (!electionIds.length) return 0;
+  const [row] = await rawRows(s, 'SELECT COUNT(*) FROM polls p JOIN contests k ON k.id = p.contest_id WHERE k.election_id IN (?)', [[...electionIds]]);
+  return Number(row?.[0] ?? 0);
+}
+
 /** Poll counts per contest, set-based (for splitting work before reading the polls). */
-export async function countPolls(s: Sequelize, contestIds: readonly number[]): Promise<Map<number, number>> {
+export async function countPolls(s: Sequelize, contestIds: readonly number[], transaction?: Transaction): Promise<Map<number, number>> {
   if (!contestIds.length) return new Map();
-  const rows = await rawRows(s, 'SELECT contest_id, COUNT(*) FROM polls WHERE contest_id IN (?) GROUP BY contest_id', [[...contestIds]]);
+  const rows = await rawRows(s, 'SELECT contest_id, COUNT(*) FROM polls WHERE contest_id IN (?) GROUP BY contest_id', [[...contestIds]], transaction);
   return new Map(rows.map((r) => [Number(r[0]), Number(r[1])]));
 }
 

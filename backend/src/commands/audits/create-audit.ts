@@ -1,26 +1,33 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { QueryTypes, Transaction, type Sequelize } from 'sequelize';
 import type { AuditPollDto, AuditSettings } from '@veracast/shared-types';
 import { CORE_VERSION } from '../../analysis/version';
 import { unprocessable } from '../../http/errors';
-import { withConnection } from '../../db/raw';
+import { rawRows, whileTablesLocked, withConnection } from '../../db/raw';
 import { headlineOfUsed, seedOf } from './compute';
-import { hashInputs } from './inputs';
-import { countPolls, loadContests, loadElections, loadPollGroups } from '../../queries/archive';
+import { combineHash, electionPollDigests, HASH_SCHEME } from './inputs';
+import { countElectionPolls, countPolls, loadContests, loadElections, readPolls } from '../../queries/archive';
 import { PartWriter, writeParts, type PartRow } from './parts';
 import { computeSlice, mergeUsed, pollChunkParts, scorecardsPart, sharedErrorParts, splitElections, type AuditSlice, type SliceOutcome } from './slice';
 import { trackAnalyses } from './analyses';
 import { readyAuditWorkers, type AuditWorker } from './workers';
-import type { FromWorker, UsedRows } from './audit-worker';
+import type { FromWorker, SliceSpec, SliceUsed, UsedRows, WorkerDatabase } from './audit-worker';
 
 /** Audits of fewer polls are computed on the main thread alone (a worker's round trip is not worth it). */
 export const PARALLEL_MIN_POLLS = 5000;
 /**
- * Share of the polls each thread takes: the main thread also reads and hashes every input before
- * it computes, so it takes less (measured best near 0.8 : 1.2 with one worker on 2 CPUs). The
- * first worker's scorecards come after the audit is committed.
+ * Share of the polls each thread takes: each reads, hashes and computes its own, and the main
+ * thread then merges and writes while the workers compress their parts; equal shares measured
+ * best with one worker on 2 CPUs (0.9 : 1.1 and 1.1 : 0.9 were slower). The first worker's
+ * scorecards come after the audit is committed.
  */
-const MAIN_WEIGHT = 0.8;
-const SCORECARD_WORKER_WEIGHT = 1.2;
+const MAIN_WEIGHT = 1;
+const WORKER_WEIGHT = 1;
+
+/**
+ * The tables an audit reads. They are locked (READ) while the threads take their snapshots, for a
+ * few milliseconds, so that every thread reads the same committed state.
+ */
+const AUDIT_INPUT_TABLES = ['elections', 'contests', 'options', 'polls', 'poll_shares', 'pollsters', 'sponsors'] as const;
 
 export interface CreateAuditOptions {
   /** Split the work over the audit worker threads; default: when there are PARALLEL_MIN_POLLS polls or more. */
@@ -33,17 +40,22 @@ let nextJob = 1;
 
 /**
  * Creates a frozen audit: reads the chosen elections set-based, computes every poll's metrics and
- * the headline, and stores the audit — settings, data hash, core version, headline and every
- * poll's row — in one transaction; resolves when that is committed. Its analyses (the scorecards,
- * seeded from the data hash, and each election's shared-error analysis: views of the stored rows,
- * see analyses.ts) are stored right after in a second transaction; `analyses` settles when they
- * are (it never rejects), and readers wait for them through `ensureAnalyses`.
+ * the headline, and stores the audit — settings, data hash (scheme {@link HASH_SCHEME}), core
+ * version, headline and every poll's row — in one transaction; resolves when that is committed.
+ * Its analyses (the scorecards, seeded from the data hash, and each election's shared-error
+ * analysis: views of the stored rows, see analyses.ts) are stored right after in a second
+ * transaction; `analyses` settles when they are (it never rejects), and readers wait for them
+ * through `ensureAnalyses`.
  *
- * Work: the elections are split into slices; the main thread computes one and each audit worker
- * (workers.ts) another at the same time. Once the audit is committed, and not before (they would
- * take CPU from storing it), each thread makes its elections' shared-error analyses and the first
- * worker the scorecards. Results do not
- * depend on the split: slices are whole elections and the used polls are merged back in the
+ * Reading: every input is read in one consistent snapshot. With audit workers (workers.ts), each
+ * worker reads its own slice on a connection of its own; their snapshots and the main thread's
+ * are all taken while the input tables are locked against writes, so they are one state.
+ *
+ * Work: the elections are split into slices; the main thread reads, hashes and computes one and
+ * each audit worker another at the same time. Once the audit is committed, and not before (they
+ * would take CPU from storing it), each thread makes its elections' shared-error analyses and the
+ * first worker the scorecards. Results do not depend on the split: slices are whole elections,
+ * the data hash combines each election's poll digest, and the used polls are merged back in the
  * audit's poll order before the headline and the scorecards.
  *
  * Storage (see parts.ts): compressed parts — each election's poll rows in chunks, then the
@@ -52,34 +64,44 @@ let nextJob = 1;
 export async function createAudit(
   sequelize: Sequelize, name: string, settings: AuditSettings, userId: number | null, rerunOf: number | null = null, options: CreateAuditOptions = {},
 ) {
-  const elections = await loadElections(sequelize, { keys: [...settings.electionKeys] });
-  const missing = settings.electionKeys.filter((k) => !elections.some((e) => e.key === k));
+  const known = await loadElections(sequelize, { keys: [...settings.electionKeys] });
+  const missing = settings.electionKeys.filter((k) => !known.some((e) => e.key === k));
   if (missing.length) throw unprocessable('unknown_election', `Unknown election${missing.length > 1 ? 's' : ''}: ${missing.join(', ')}`, [{ field: 'electionKeys', message: `unknown: ${missing.join(', ')}` }]);
-  const contests = await loadContests(sequelize, { electionIds: elections.map((e) => e.id) });
-  const pollsPerContest = await countPolls(sequelize, contests.map((c) => c.id));
-  let pollCount = 0;
-  for (const n of pollsPerContest.values()) pollCount += n;
-
-  const workers = (options.parallel ?? pollCount >= PARALLEL_MIN_POLLS) ? (options.workers ?? (await readyAuditWorkers())) : [];
-  const groups = splitElections(elections, contests, pollsPerContest, [MAIN_WEIGHT, ...workers.map((_, k) => (k === 0 ? SCORECARD_WORKER_WEIGHT : 1))]);
-  const slices: AuditSlice[] = groups.map((g) => ({ settings, elections: g.elections, contests: g.contests, polls: [] }));
-  let jobs: WorkerJob[] = [];
+  const parallel = options.parallel ?? (await countElectionPolls(sequelize, known.map((e) => e.id))) >= PARALLEL_MIN_POLLS;
+  // Only idle workers: one busy with another audit would open its snapshot only once free, and
+  // writers would wait for it meanwhile. Each job reserves its worker from here on.
+  const workers = parallel ? (options.workers ?? (await readyAuditWorkers())).filter((w) => w.idle) : [];
+  let jobs = workers.map((w, k) => new WorkerJob(w, k === 0));
   try {
-    // The workers' polls are read first and handed over at once, so they start while the rest is read.
-    const readOrder = [...slices.keys()].slice(1).concat(0);
-    await loadPollGroups(sequelize, readOrder.map((k) => ({ contestIds: slices[k]!.contests.map((c) => c.id) })), (g, polls) => {
-      const k = readOrder[g]!;
-      slices[k]!.polls = polls;
-      // The first worker will also make the scorecards: its job is done only once they are sent.
-      if (k > 0) jobs.push(new WorkerJob(workers[k - 1]!, slices[k]!, k === 1));
+    const read = await sequelize.transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.REPEATABLE_READ }, async (snapshot) => {
+      // This transaction's snapshot is taken at its first read; the workers' when they open theirs.
+      const takeSnapshots = async () => {
+        await rawRows(sequelize, 'SELECT 1 FROM elections LIMIT 1', [], snapshot);
+        const db = workerDatabase(sequelize);
+        await Promise.all(jobs.map((j) => j.open(db)));
+      };
+      if (jobs.length) await whileTablesLocked(sequelize, AUDIT_INPUT_TABLES, takeSnapshots);
+      else await takeSnapshots();
+      const elections = await loadElections(sequelize, { keys: [...settings.electionKeys] }, snapshot);
+      const contests = await loadContests(sequelize, { electionIds: elections.map((e) => e.id) }, snapshot);
+      const pollsPerContest = await countPolls(sequelize, contests.map((c) => c.id), snapshot);
+      const groups = splitElections(elections, contests, pollsPerContest, [MAIN_WEIGHT, ...jobs.map(() => WORKER_WEIGHT)]);
+      jobs.forEach((job, k) => job.start({ settings, elections: groups[k + 1]!.elections, contests: groups[k + 1]!.contests }));
+      const [own] = groups;
+      const polls = await readPolls((sql, values) => rawRows(sequelize, sql, values, snapshot), { contestIds: own!.contests.map((c) => c.id) });
+      return { elections, contests, mySlice: { settings, elections: own!.elections, contests: own!.contests, polls } as AuditSlice };
     });
-    const dataHash = hashInputs(elections, contests, slices.flatMap((x) => x.polls));
-    const seed = seedOf(dataHash);
-    const mine = computeSlice(slices[0]!);
+    const { elections, contests, mySlice } = read;
+    const myElections = mySlice.elections.map((e) => e.key);
+    const digests = electionPollDigests(mySlice.elections, mySlice.contests, mySlice.polls);
+    const mine = computeSlice(mySlice);
     // The input rows are no longer needed here: let them go before the parts are built.
-    for (const slice of slices) slice.polls = [];
+    mySlice.polls = [];
     const others = await Promise.all(jobs.map((j) => j.used));
-    const usedRows: UsedRows[] = [{ used: mine.used }, ...others];
+    for (const o of others) Object.assign(digests, o.digests);
+    const dataHash = combineHash(elections, contests, digests);
+    const seed = seedOf(dataHash);
+    const usedRows: UsedRows[] = [{ used: mine.used }, ...others.map((o) => ({ used: o.used }))];
     const counts = { pollsTotal: mine.total, notComputable: mine.notComputable };
     for (const o of others) {
       counts.pollsTotal += o.total;
@@ -91,10 +113,10 @@ export async function createAudit(
     // The audit: its row and every poll row, in one transaction.
     const created = await sequelize.transaction(async (transaction) => {
       const [id] = await sequelize.query(
-        `INSERT INTO audits (name, settings, data_hash, core_version, poll_count, summary, scorecards, shared_error, rerun_of_id, created_by_id)
-         VALUES (:name, :settings, :hash, :core, :count, :summary, NULL, NULL, :rerunOf, :userId)`,
+        `INSERT INTO audits (name, settings, data_hash, hash_scheme, core_version, poll_count, summary, scorecards, shared_error, rerun_of_id, created_by_id)
+         VALUES (:name, :settings, :hash, :scheme, :core, :count, :summary, NULL, NULL, :rerunOf, :userId)`,
         {
-          replacements: { name, settings: JSON.stringify(settings), hash: dataHash, core: CORE_VERSION, count: counts.pollsTotal, summary, rerunOf, userId },
+          replacements: { name, settings: JSON.stringify(settings), hash: dataHash, scheme: HASH_SCHEME, core: CORE_VERSION, count: counts.pollsTotal, summary, rerunOf, userId },
           type: QueryTypes.INSERT,
           transaction,
         },
@@ -103,7 +125,7 @@ export async function createAudit(
       await withConnection(sequelize, transaction, async (c) => {
         const writer = new PartWriter(c, auditId);
         for (const job of jobs) job.sendPartsTo('polls', writer);
-        await writeParts(writer, pollChunkParts(mine, slices[0]!.elections.map((e) => e.key)));
+        await writeParts(writer, pollChunkParts(mine, myElections));
         await Promise.all(jobs.map((j) => j.pollsDone));
         await writer.finish();
       });
@@ -114,7 +136,7 @@ export async function createAudit(
     const releasing = jobs;
     jobs = [];
     const forScorecards = usedRows.filter((_, k) => k !== 1);
-    const analyses = storeAnalyses(sequelize, created.id, releasing, mine, allUsed, forScorecards, settings, seed, slices[0]!.elections.map((e) => e.key))
+    const analyses = storeAnalyses(sequelize, created.id, releasing, mine, allUsed, forScorecards, settings, seed, myElections)
       .then(() => ({ ok: true as const }), (error: unknown) => ({ ok: false as const, error }))
       .finally(() => {
         for (const job of releasing) job.release();
@@ -151,9 +173,19 @@ async function storeAnalyses(
 /** Which transaction a worker's part goes to: the audit's (poll rows) or the analyses'. */
 type PartGroup = 'polls' | 'analyses';
 
-/** One slice of an audit given to a worker: its used rows, then its parts as they come. */
+/** The database the workers read: the one `sequelize` uses, with its credentials. */
+function workerDatabase(sequelize: Sequelize): WorkerDatabase {
+  const c = sequelize.config;
+  return { host: c.host ?? '127.0.0.1', port: Number(c.port), user: c.username, password: c.password ?? '', database: c.database };
+}
+
+/**
+ * One slice of an audit given to a worker: the worker opens its snapshot when asked (`open`),
+ * reads and computes the slice once `start`ed (`used`), then sends its parts as they come.
+ */
 class WorkerJob {
-  readonly used: Promise<UsedRows & { total: number; notComputable: number }>;
+  readonly used: Promise<SliceUsed>;
+  private readonly opened: Promise<void>;
   /** Settles when the worker has sent every poll chunk of its slice. */
   readonly pollsDone: Promise<void>;
   /** Settles when the worker has sent every part of the job (its slice's, its analyses and the scorecards if asked). */
@@ -163,7 +195,7 @@ class WorkerJob {
   private readonly received: Record<PartGroup, PartRow[]> = { polls: [], analyses: [] };
   private readonly writers: Record<PartGroup, PartWriter | null> = { polls: null, analyses: null };
 
-  constructor(private readonly worker: AuditWorker, slice: AuditSlice, private readonly scorecards: boolean) {
+  constructor(private readonly worker: AuditWorker, private readonly scorecards: boolean) {
     const settled = <T,>() => {
       let resolve!: (v: T) => void;
       let reject!: (err: Error) => void;
@@ -174,14 +206,17 @@ class WorkerJob {
       promise.catch(() => undefined);
       return { promise, resolve, reject };
     };
-    const used = settled<UsedRows & { total: number; notComputable: number }>();
+    const opened = settled<void>();
+    const used = settled<SliceUsed>();
     const pollsDone = settled<void>();
     const done = settled<void>();
+    this.opened = opened.promise;
     this.used = used.promise;
     this.pollsDone = pollsDone.promise;
     this.done = done.promise;
     this.listening = worker.listen(this.id, (m: FromWorker) => {
-      if (m.type === 'used') used.resolve({ used: m.used, total: m.total, notComputable: m.notComputable });
+      if (m.type === 'opened') opened.resolve();
+      else if (m.type === 'used') used.resolve({ used: m.used, total: m.total, notComputable: m.notComputable, digests: m.digests });
       else if (m.type === 'part') {
         const part = { ...m.part, payload: Buffer.from(m.part.payload.buffer, m.part.payload.byteOffset, m.part.payload.byteLength) };
         this.receive(part.kind === 'polls' ? 'polls' : 'analyses', part);
@@ -190,12 +225,23 @@ class WorkerJob {
       else if (m.type === 'error') {
         const err = new Error(`audit worker: ${m.message}`);
         if (m.stack) err.stack = `${err.message}\n  worker stack: ${m.stack}`;
+        opened.reject(err);
         used.reject(err);
         pollsDone.reject(err);
         done.reject(err);
       }
     });
-    worker.send({ type: 'slice', job: this.id, slice, electionKeys: slice.elections.map((e) => e.key) });
+  }
+
+  /** Asks the worker to open its snapshot of `db`; settles when it is taken. */
+  open(db: WorkerDatabase): Promise<void> {
+    this.worker.send({ type: 'open', job: this.id, db });
+    return this.opened;
+  }
+
+  /** Gives the worker its slice, to read in its snapshot and compute. */
+  start(slice: SliceSpec) {
+    this.worker.send({ type: 'slice', job: this.id, slice, electionKeys: slice.elections.map((e) => e.key) });
   }
 
   /**

@@ -51,6 +51,11 @@ export class AuditWorker {
     return this.dead === null;
   }
 
+  /** No audit job is using this worker (a job counts from `listen` until its release). */
+  get idle(): boolean {
+    return this.active === 0;
+  }
+
   /**
    * Listens to a job's messages and keeps the worker referenced (so the process stays up while it
    * works) until `release` is called.

@@ -7,7 +7,7 @@ import { parse } from '../../http/validate';
 import { sendCsv, sendList, wantsCsv } from '../../http/csv';
 import { idParam } from '../../http/params';
 import { createAudit, loadAuditPolls } from '../../commands/audits/create-audit';
-import { loadAuditInputs } from '../../commands/audits/inputs';
+import { hashSchemeOf, loadAuditInputs } from '../../commands/audits/inputs';
 import { loadStoredScorecards, loadStoredSharedErrors } from '../../commands/audits/parts';
 import { scorecardsFor, seedOf, usedPolls } from '../../commands/audits/compute';
 import { ensureAnalyses } from '../../commands/audits/analyses';
@@ -18,12 +18,12 @@ import { auditPollsQuerySchema, scorecardQuerySchema, sharedErrorQuerySchema } f
 import type { AppContext } from '../../http/context';
 
 interface AuditRow {
-  id: number; name: string; settings: string; data_hash: string; core_version: string; poll_count: number; summary: string;
+  id: number; name: string; settings: string; data_hash: string; hash_scheme: number; core_version: string; poll_count: number; summary: string;
   rerun_of_id: number | null; created_at: Date; created_by: string | null;
 }
 
 /** The audit row without its large stored results (those are read apart: see commands/audits/parts). */
-const AUDIT_SELECT = 'SELECT a.id, a.name, a.settings, a.data_hash, a.core_version, a.poll_count, a.summary, a.rerun_of_id, a.created_at, u.email AS created_by FROM audits a LEFT JOIN users u ON u.id = a.created_by_id';
+const AUDIT_SELECT = 'SELECT a.id, a.name, a.settings, a.data_hash, a.hash_scheme, a.core_version, a.poll_count, a.summary, a.rerun_of_id, a.created_at, u.email AS created_by FROM audits a LEFT JOIN users u ON u.id = a.created_by_id';
 
 export const AUDIT_POLL_COLUMNS = [
   'pollKey', 'contestKey', 'electionKey', 'pollster', 'fieldworkEnd', 'sampleSize', 'population', 'mode', 'refA', 'refB', 'marginError', 'absMarginError', 'lean',
@@ -56,7 +56,7 @@ export function auditsRouter(ctx: AppContext) {
   async function present(row: AuditRow, checkCurrent: boolean): Promise<AuditDto> {
     const settings = JSON.parse(row.settings) as AuditSettings;
     // Checking currency reads every input row anyway: take the elections and contests from that read.
-    const current = checkCurrent ? await loadAuditInputs(s, settings.electionKeys) : null;
+    const current = checkCurrent ? await loadAuditInputs(s, settings.electionKeys, hashSchemeOf(row.hash_scheme)) : null;
     const elections = current?.elections ?? (await loadElections(s, { keys: settings.electionKeys }));
     const contests = current?.contests ?? (await loadContests(s, { electionIds: elections.map((e) => e.id) }));
     const currentHash = current?.dataHash ?? null;
@@ -84,7 +84,7 @@ export function auditsRouter(ctx: AppContext) {
   }
 
   router.get('/', requireRole('viewer'), async (req, res) => {
-    const rows = await s.query<AuditRow>('SELECT a.id, a.name, a.settings, a.data_hash, a.core_version, a.poll_count, a.summary, a.rerun_of_id, a.created_at, u.email AS created_by FROM audits a LEFT JOIN users u ON u.id = a.created_by_id ORDER BY a.id DESC LIMIT 500', { type: QueryTypes.SELECT });
+    const rows = await s.query<AuditRow>('SELECT a.id, a.name, a.settings, a.data_hash, a.hash_scheme, a.core_version, a.poll_count, a.summary, a.rerun_of_id, a.created_at, u.email AS created_by FROM audits a LEFT JOIN users u ON u.id = a.created_by_id ORDER BY a.id DESC LIMIT 500', { type: QueryTypes.SELECT });
     const items = rows.map((r) => ({
       id: r.id, name: r.name, settings: JSON.parse(r.settings) as AuditSettings, dataHash: r.data_hash, coreVersion: r.core_version, pollCount: r.poll_count,
       createdAt: new Date(r.created_at).toISOString(), createdBy: r.created_by, rerunOf: r.rerun_of_id,

@@ -1,7 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { AuditHeadline, AuditPollDto, AuditSettings } from '@veracast/shared-types';
 import { loadAuditPolls } from '../../commands/audits/create-audit';
-import { loadAuditInputs } from '../../commands/audits/inputs';
+import { hashSchemeOf, loadAuditInputs } from '../../commands/audits/inputs';
 import { loadStoredScorecards, loadStoredSharedErrors } from '../../commands/audits/parts';
 import { ensureAnalyses } from '../../commands/audits/analyses';
 import { loadElections } from '../../queries/archive';
@@ -45,7 +45,7 @@ export interface AuditSnapshot {
 }
 
 interface AuditRow {
-  id: number; name: string; settings: string; data_hash: string; core_version: string; summary: string; created_at: Date;
+  id: number; name: string; settings: string; data_hash: string; hash_scheme: number; core_version: string; summary: string; created_at: Date;
 }
 
 /** Loads the audits named by `ids`; a missing id is simply absent from the map. */
@@ -57,7 +57,7 @@ export async function loadAuditSnapshots(
   const out = new Map<number, AuditSnapshot>();
   if (!ids.length) return out;
   const rows = await sequelize.query<AuditRow>(
-    'SELECT id, name, settings, data_hash, core_version, summary, created_at FROM audits WHERE id IN (:ids)',
+    'SELECT id, name, settings, data_hash, hash_scheme, core_version, summary, created_at FROM audits WHERE id IN (:ids)',
     { replacements: { ids: [...new Set(ids)] }, type: QueryTypes.SELECT },
   );
   for (const row of rows) {
@@ -77,7 +77,7 @@ export async function loadAuditSnapshots(
       sharedError: await loadStoredSharedErrors<StoredSharedError>(sequelize, row.id),
       elections: elections.map((e) => ({ key: e.key, name: e.name, date: e.date, fictional: e.fictional })),
       polls: options.withPolls?.has(row.id) ? await loadAuditPolls(sequelize, row.id) : null,
-      currentHash: options.checkCurrent ? (await loadAuditInputs(sequelize, settings.electionKeys)).dataHash : null,
+      currentHash: options.checkCurrent ? (await loadAuditInputs(sequelize, settings.electionKeys, hashSchemeOf(row.hash_scheme))).dataHash : null,
     });
   }
   return out;
