@@ -36,7 +36,7 @@ const ROW_ARRAYS = { rowsAsArray: true, typeCast: undefined, dateStrings: true }
 /** A SELECT returning rows as {@link rawRows} does; `?` takes the values in order. */
 export type SelectRows = (sql: string, values?: unknown[]) => Promise<unknown[][]>;
 
-/** {@link SelectRows} on one connection of the mariadb connector (Sequelize's or a pool's of its own). */
+/** {@link SelectRows} on one connection of the mariadb connector (one of Sequelize's pool, or one an audit worker opened). */
 export const selectOn = (c: Pick<RawConnection, 'query'>): SelectRows => async (sql, values = []) => (await c.query({ sql, ...ROW_ARRAYS }, values)) as unknown[][];
 
 /**

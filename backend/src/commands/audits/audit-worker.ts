@@ -72,13 +72,15 @@ interface Job {
 const jobs = new Map<number, Job>();
 
 const post = (m: FromWorker) => port.postMessage(m);
+/** Forgets the job (closing its connection if still open). */
+const forget = (job: number) => void closeSnapshot(job).finally(() => jobs.delete(job));
 const fail = (job: number, err: unknown) => {
-  void close(job, false);
+  forget(job);
   post({ type: 'error', job, message: err instanceof Error ? err.message : String(err), stack: err instanceof Error ? (err.stack ?? null) : null });
 };
 
-/** Ends the job's snapshot (if still open) and closes its connection. */
-async function close(job: number, ok: boolean) {
+/** Ends the job's snapshot, if still open, by closing its connection. */
+async function closeSnapshot(job: number) {
   const state = jobs.get(job);
   const connection = state?.connection;
   if (!state || !connection) return;
@@ -88,7 +90,6 @@ async function close(job: number, ok: boolean) {
   } catch {
     connection.destroy();
   }
-  if (!ok) jobs.delete(job);
 }
 
 /** Compresses parts as they are produced and posts each; resolves when every one is posted. */
@@ -121,7 +122,7 @@ async function runSlice(job: number, slice: SliceSpec, electionKeys: string[]) {
   const state = jobs.get(job);
   if (!state?.connection) throw new Error(`audit job ${job} has no open snapshot here`);
   const polls = await readPolls(selectOn(state.connection), { contestIds: slice.contests.map((c) => c.id) });
-  await close(job, true);
+  await closeSnapshot(job);
   const digests = electionPollDigests(slice.elections, slice.contests, polls);
   const outcome = computeSlice({ ...slice, polls });
   Object.assign(state, { slice, electionKeys, outcome });
@@ -144,6 +145,6 @@ port.on('message', (m: ToWorker) => {
   if (m.type === 'open') open(m.job, m.db).catch((err: unknown) => fail(m.job, err));
   else if (m.type === 'slice') runSlice(m.job, m.slice, m.electionKeys).catch((err: unknown) => fail(m.job, err));
   else if (m.type === 'analyses') runAnalyses(m.job, m.scorecards).catch((err: unknown) => fail(m.job, err));
-  else void close(m.job, false).finally(() => jobs.delete(m.job));
+  else forget(m.job);
 });
 post({ type: 'ready' });

@@ -24,8 +24,9 @@ const MAIN_WEIGHT = 1;
 const WORKER_WEIGHT = 1;
 
 /**
- * The tables an audit reads. They are locked (READ) while the threads take their snapshots, for a
- * few milliseconds, so that every thread reads the same committed state.
+ * The tables an audit reads (loadElections, loadContests, readPolls). They are locked (READ) while
+ * the threads take their snapshots, for a few milliseconds, so that every thread reads the same
+ * committed state; a table those readers join later must be added here.
  */
 const AUDIT_INPUT_TABLES = ['elections', 'contests', 'options', 'polls', 'poll_shares', 'pollsters', 'sponsors'] as const;
 
@@ -74,22 +75,24 @@ export async function createAudit(
   let jobs = workers.map((w, k) => new WorkerJob(w, k === 0));
   try {
     const read = await sequelize.transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.REPEATABLE_READ }, async (snapshot) => {
-      // This transaction's snapshot is taken at its first read; the workers' when they open theirs.
-      const takeSnapshots = async () => {
-        await rawRows(sequelize, 'SELECT 1 FROM elections LIMIT 1', [], snapshot);
+      if (jobs.length) {
+        // Every thread's snapshot, taken while no one can write the inputs: one state. This
+        // transaction's is taken at its first read, the workers' when they open theirs.
         const db = workerDatabase(sequelize);
-        await Promise.all(jobs.map((j) => j.open(db)));
-      };
-      if (jobs.length) await whileTablesLocked(sequelize, AUDIT_INPUT_TABLES, takeSnapshots);
-      else await takeSnapshots();
+        await whileTablesLocked(sequelize, AUDIT_INPUT_TABLES, async () => {
+          await rawRows(sequelize, 'SELECT 1 FROM elections LIMIT 1', [], snapshot);
+          await Promise.all(jobs.map((j) => j.open(db)));
+        });
+      }
+      // Read again in the snapshot (the first read only checked the keys and sized the work).
       const elections = await loadElections(sequelize, { keys: [...settings.electionKeys] }, snapshot);
       const contests = await loadContests(sequelize, { electionIds: elections.map((e) => e.id) }, snapshot);
       const pollsPerContest = await countPolls(sequelize, contests.map((c) => c.id), snapshot);
-      const groups = splitElections(elections, contests, pollsPerContest, [MAIN_WEIGHT, ...jobs.map(() => WORKER_WEIGHT)]);
-      jobs.forEach((job, k) => job.start({ settings, elections: groups[k + 1]!.elections, contests: groups[k + 1]!.contests }));
-      const [own] = groups;
+      const [own, ...theirs] = splitElections(elections, contests, pollsPerContest, [MAIN_WEIGHT, ...jobs.map(() => WORKER_WEIGHT)]);
+      jobs.forEach((job, k) => job.start({ settings, elections: theirs[k]!.elections, contests: theirs[k]!.contests }));
       const polls = await readPolls((sql, values) => rawRows(sequelize, sql, values, snapshot), { contestIds: own!.contests.map((c) => c.id) });
-      return { elections, contests, mySlice: { settings, elections: own!.elections, contests: own!.contests, polls } as AuditSlice };
+      const mySlice: AuditSlice = { settings, elections: own!.elections, contests: own!.contests, polls };
+      return { elections, contests, mySlice };
     });
     const { elections, contests, mySlice } = read;
     const myElections = mySlice.elections.map((e) => e.key);
