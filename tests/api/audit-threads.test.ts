@@ -91,6 +91,27 @@ describe('audits over worker threads', () => {
     await q.query("DELETE FROM polls WHERE `key` LIKE '%-late'");
   });
 
+  it('give up with 409 archive_busy, nothing written, when a write stays open longer than the wait', async () => {
+    configureAuditWorkers(1);
+    const q = t.ctx.sequelize;
+    const [count] = await q.query<{ n: number }>('SELECT COUNT(*) AS n FROM audits', { type: QueryTypes.SELECT });
+    const writer = await q.transaction();
+    try {
+      await q.query("UPDATE elections SET name = CONCAT(name, ' (editing)') WHERE `key` = ?", { replacements: [settings.electionKeys[0]], transaction: writer });
+      const started = Date.now();
+      await expect(createAudit(q, 'blocked', settings, null, null, { parallel: true, lockWaitSeconds: 1 })).rejects.toMatchObject({ status: 409, code: 'archive_busy' });
+      expect(Date.now() - started).toBeGreaterThanOrEqual(900);
+    } finally {
+      await writer.rollback();
+    }
+    const [after] = await q.query<{ n: number }>('SELECT COUNT(*) AS n FROM audits', { type: QueryTypes.SELECT });
+    expect(Number(after!.n)).toBe(Number(count!.n));
+    // Once the write is over, the same audit goes through with its worker.
+    const audit = await createAudit(q, 'unblocked', settings, null, null, { parallel: true, lockWaitSeconds: 1 });
+    expect(audit.threads).toBe(2);
+    await audit.analyses;
+  });
+
   it('leave a worker busy with another audit alone: the second audit runs without it, the same', async () => {
     configureAuditWorkers(1);
     const q = t.ctx.sequelize;

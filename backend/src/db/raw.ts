@@ -67,16 +67,20 @@ export async function withSnapshot<T>(sequelize: Sequelize, fn: (select: SelectR
   });
 }
 
+/** MariaDB's error number when a lock was not granted within the wait allowed (ER_LOCK_WAIT_TIMEOUT). */
+export const LOCK_WAIT_TIMEOUT = 1205;
+
 /**
  * Runs `fn` while a connection of its own holds READ locks on `tables`: no one can write to them
  * meanwhile (writers wait; a writer already in a transaction on them is waited for before the
- * locks are granted), everyone can read. Snapshots started inside `fn`, on any connection, thus
- * see one and the same committed state of those tables. Keep `fn` short: writers wait for it.
- * Needs the LOCK TABLES privilege (part of ALL PRIVILEGES on the database).
+ * locks are granted, at most `waitSeconds`, else the error {@link LOCK_WAIT_TIMEOUT}), everyone
+ * can read. Snapshots started inside `fn`, on any connection, thus see one and the same committed
+ * state of those tables. Keep `fn` short: writers wait for it. Needs the LOCK TABLES privilege
+ * (part of ALL PRIVILEGES on the database).
  */
-export async function whileTablesLocked<T>(sequelize: Sequelize, tables: readonly string[], fn: () => Promise<T>): Promise<T> {
+export async function whileTablesLocked<T>(sequelize: Sequelize, tables: readonly string[], waitSeconds: number, fn: () => Promise<T>): Promise<T> {
   return withConnection(sequelize, null, async (c) => {
-    await c.query({ sql: `LOCK TABLES ${tables.map((t) => `\`${t}\` READ`).join(', ')}` });
+    await c.query({ sql: `LOCK TABLES ${tables.map((t) => `\`${t}\` READ`).join(', ')} WAIT ${Math.max(0, Math.floor(waitSeconds))}` });
     try {
       return await fn();
     } finally {

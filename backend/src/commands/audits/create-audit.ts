@@ -1,8 +1,8 @@
 import { QueryTypes, Transaction, type Sequelize } from 'sequelize';
 import type { AuditPollDto, AuditSettings } from '@veracast/shared-types';
 import { CORE_VERSION } from '../../analysis/version';
-import { unprocessable } from '../../http/errors';
-import { rawRows, whileTablesLocked, withConnection } from '../../db/raw';
+import { conflict, unprocessable } from '../../http/errors';
+import { LOCK_WAIT_TIMEOUT, rawRows, whileTablesLocked, withConnection } from '../../db/raw';
 import { headlineOfUsed, seedOf } from './compute';
 import { combineHash, electionPollDigests, HASH_SCHEME } from './inputs';
 import { countElectionPolls, countPolls, loadContests, loadElections, readPolls } from '../../queries/archive';
@@ -30,11 +30,16 @@ const WORKER_WEIGHT = 1;
  */
 const AUDIT_INPUT_TABLES = ['elections', 'contests', 'options', 'polls', 'poll_shares', 'pollsters', 'sponsors'] as const;
 
+/** How long an audit waits for writes under way on its inputs before it gives up (409 archive_busy). */
+const LOCK_WAIT_SECONDS = 30;
+
 export interface CreateAuditOptions {
   /** Split the work over the audit worker threads; default: when there are PARALLEL_MIN_POLLS polls or more. */
   parallel?: boolean;
   /** The workers to use when parallel (default: the pool's ready ones). */
   workers?: AuditWorker[];
+  /** Seconds to wait for writes under way before the threads take their snapshots (default 30). */
+  lockWaitSeconds?: number;
 }
 
 let nextJob = 1;
@@ -79,9 +84,12 @@ export async function createAudit(
         // Every thread's snapshot, taken while no one can write the inputs: one state. This
         // transaction's is taken at its first read, the workers' when they open theirs.
         const db = workerDatabase(sequelize);
-        await whileTablesLocked(sequelize, AUDIT_INPUT_TABLES, async () => {
+        await whileTablesLocked(sequelize, AUDIT_INPUT_TABLES, options.lockWaitSeconds ?? LOCK_WAIT_SECONDS, async () => {
           await rawRows(sequelize, 'SELECT 1 FROM elections LIMIT 1', [], snapshot);
           await Promise.all(jobs.map((j) => j.open(db)));
+        }).catch((err: unknown) => {
+          if ((err as { errno?: number }).errno !== LOCK_WAIT_TIMEOUT) throw err;
+          throw conflict('archive_busy', 'The archive is still being written (an import or an edit is under way), so the audit did not start. Try again once it has finished.');
         });
       }
       // Read again in the snapshot (the first read only checked the keys and sized the work).
