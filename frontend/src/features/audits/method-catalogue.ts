@@ -326,9 +326,15 @@ export const METHOD_SECTIONS: MethodSection[] = [
         anchor: A.dataHash,
         name: 'Data hash',
         measures: 'A fingerprint of every input the audit read, so anyone can tell whether the data has changed since.',
-        formula: ['SHA-256 over the audit’s elections, contests, certified results and polls'],
+        formula: [
+          'SHA-256 over one canonical line per election and per contest (with its certified results), in key order,',
+          'then per election, in key order, a line holding the SHA-256 of its polls’ lines (every field and share, in poll-key order)',
+        ],
         unit: '64 hexadecimal characters.',
-        notes: ['When the current data gives another hash, the audit is out of date and can be re-run; the old one never changes.'],
+        notes: [
+          'When the current data gives another hash, the audit is out of date and can be re-run; the old one never changes.',
+          'Audits stored before 2 December 2026 hash every line in one pass; each is checked with the way it was made.',
+        ],
         sources: [{ kind: 'practice', citation: 'Veracast SPEC §1 (audit).' }],
       },
     ],
