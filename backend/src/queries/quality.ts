@@ -1,6 +1,6 @@
 import type { QualityIssueDto } from '@veracast/shared-types';
 import type { ContestRow, ElectionRow, PollRow } from './archive';
-import { groupBy } from './group-by';
+import { groupBy } from '../analysis/group-by';
 
 const overlap = (a: PollRow, b: PollRow) => a.fieldworkStart <= b.fieldworkEnd && b.fieldworkStart <= a.fieldworkEnd;
 const sharesEqual = (a: PollRow, b: PollRow, tol = 0.5) => {

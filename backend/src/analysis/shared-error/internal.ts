@@ -1,10 +1,11 @@
 /**
  * Small helpers shared by the shared-error modules: input checks in the style of
- * `../errors.ts`, a locale-free key order, and grouping that keeps first-seen order.
+ * `../errors.ts`, a locale-free key order, and grouping in that key order.
  * Nothing here is exported from `index.ts`.
  */
 import { mean } from 'simple-statistics';
 import { MetricInputError, requireFinite } from '../errors';
+import { groupBy as groupInOrder } from '../group-by';
 
 /** Throws unless `key` is a non-empty string. */
 export function requireKey(parameter: string, key: unknown): asserts key is string {
@@ -59,14 +60,7 @@ export function compareKeys(a: string, b: string): number {
 
 /** Groups items by a key; groups are returned in key order (`compareKeys`). */
 export function groupBy<T>(items: readonly T[], keyOf: (item: T) => string): Map<string, T[]> {
-  const groups = new Map<string, T[]>();
-  for (const item of items) {
-    const key = keyOf(item);
-    const group = groups.get(key);
-    if (group) group.push(item);
-    else groups.set(key, [item]);
-  }
-  return new Map([...groups.entries()].sort(([a], [b]) => compareKeys(a, b)));
+  return new Map([...groupInOrder(items, keyOf).entries()].sort(([a], [b]) => compareKeys(a, b)));
 }
 
 /** Arithmetic mean with a compensated sum (simple-statistics `mean`, n denominator). */

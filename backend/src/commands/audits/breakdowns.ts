@@ -3,7 +3,7 @@ import { MetricInputError } from '../../analysis/errors';
 import { breakdowns, clusteredMean, DAYS_OUT_BINS, SAMPLE_SIZE_BINS, samplingFunnel, tInterval, UNDECIDED_BINS, type Breakdown } from '../../analysis/ranking';
 import { historicalAverageInterval, qqPoints, tooCloseToCall } from '../../analysis/shared-error';
 import type { ElectionRow } from '../../queries/archive';
-import { groupBy } from '../../queries/group-by';
+import { groupBy } from '../../analysis/group-by';
 import { usedPolls } from './compute';
 
 type Computable = AuditPollDto & { marginError: number; absMarginError: number };
